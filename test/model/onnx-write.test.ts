@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import * as ort from 'onnxruntime-node';
-import { writeMlpOnnx } from '../src/model/onnx-write.js';
+import { writeMlpOnnx } from '../../src/model/onnx-write.js';
 
 describe('writeMlpOnnx', () => {
   it('writes a Gemm/Relu graph that onnxruntime runs with the hand-computed result', async () => {
