@@ -33,6 +33,9 @@ export class ScenarioError extends ToolError {
 /** Model file missing, not ONNX, wrong widths, or producing non-finite scores. */
 export class ModelError extends ToolError {}
 
+/** Training data or learning options that the tree learner cannot use. */
+export class LearnError extends ToolError {}
+
 /** Rule text or rule file that cannot be read. */
 export class RuleSyntaxError extends ToolError {}
 
