@@ -1,0 +1,8 @@
+export { checkRules, SURFACE_SHARE_DEFAULT } from './check-rules.js';
+export type { CheckOptions } from './check-rules.js';
+export { measureFidelity } from './fidelity.js';
+export type { FidelityOptions } from './fidelity.js';
+export { clopperPearsonUpper, clopperPearsonInterval } from './clopper-pearson.js';
+export { boxVolumeFraction } from './box-volume.js';
+export { deriveSeed } from './derive-seed.js';
+export { violationMargin } from './violation.js';

@@ -1,0 +1,122 @@
+import type { Model, Rule, RuleTable, Scenario, Tree } from '../types.js';
+import { sampleDomain } from '../sampling/index.js';
+import { learnTree, pruneSequence } from '../learn/index.js';
+import { mergeRules, roundThresholds, treeToRules } from '../rules/index.js';
+import { checkRules, measureFidelity } from '../check/index.js';
+import { toolVersion } from '../version.js';
+
+export interface MineSettings {
+  readonly seed: number;
+  /** Samples of the network used to learn the tree. */
+  readonly budget: number;
+  /** Largest number of rules in the table (after merging). */
+  readonly maxRules: number;
+  /** Smallest number of samples in a leaf of the full tree before pruning. */
+  readonly minLeaf: number;
+  /** Largest loss of agreement with the samples allowed for readable thresholds (0..1). */
+  readonly roundTolerance: number;
+  /** Dense samples per rule for checking. */
+  readonly checkSamples: number;
+  /** Fresh uniform samples for the fidelity figures. */
+  readonly fidelitySamples: number;
+  /** Confidence of bounds and intervals, e.g. 0.95. */
+  readonly confidence: number;
+}
+
+export interface MineHooks {
+  readonly onStage?: (stage: string) => void;
+  readonly onProgress?: (stage: string, done: number, total: number) => void;
+}
+
+/** Rules of a tree after merging same-advisory neighbours. */
+function rulesOf(tree: Tree, scenario: Scenario): Rule[] {
+  return mergeRules(treeToRules(tree, scenario.inputs));
+}
+
+/**
+ * Picks the largest tree of the minimal cost-complexity pruning sequence (Breiman et al. 1984,
+ * ch. 3) whose merged rule table has at most `maxRules` rules. The sequence is ordered from the
+ * full tree to the root; merged counts fall (almost) monotonically along it, so a binary search
+ * finds the boundary and a short backward scan guards against small non-monotone steps.
+ */
+export function pickPrunedTree(tree: Tree, scenario: Scenario, maxRules: number): Tree {
+  const seq = pruneSequence(tree);
+  const count = (i: number): number => rulesOf(seq[i]!.tree, scenario).length;
+  let lo = 0;
+  let hi = seq.length - 1;
+  if (count(lo) <= maxRules) return seq[lo]!.tree;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (count(mid) <= maxRules) hi = mid;
+    else lo = mid;
+  }
+  return seq[hi]!.tree;
+}
+
+/**
+ * The mining pipeline: samples the network over the input box, learns a CART tree, prunes it
+ * to the rule budget, rounds thresholds to readable values, turns leaves into merged rules,
+ * checks every rule on dense samples and measures the table's fidelity.
+ */
+export async function mine(scenario: Scenario, model: Model, settings: MineSettings, hooks: MineHooks = {}): Promise<RuleTable> {
+  const d = scenario.inputs.length;
+  const k = scenario.advisories.length;
+  hooks.onStage?.('sampling');
+  const samples = await sampleDomain(scenario.inputs, model.evaluate, {
+    seed: settings.seed,
+    budget: settings.budget,
+    onProgress: (done, total) => hooks.onProgress?.('sampling', done, total),
+  });
+  hooks.onStage?.('learning');
+  const data = { x: samples.x, n: samples.n, d, labels: samples.advisory, classes: k };
+  const full = learnTree(data, { minLeaf: settings.minLeaf });
+  const pruned = pickPrunedTree(full, scenario, settings.maxRules);
+  hooks.onStage?.('rules');
+  const readable = roundThresholds(pruned, data, scenario.inputs, { tolerance: settings.roundTolerance });
+  const rules = rulesOf(readable, scenario);
+  hooks.onStage?.('checking');
+  const checked = await checkRules(rules, scenario.inputs, model.evaluate, {
+    seed: settings.seed,
+    samplesPerRule: settings.checkSamples,
+    confidence: settings.confidence,
+    decision: scenario.decision,
+    onProgress: (done, total) => hooks.onProgress?.('checking', done, total),
+  });
+  hooks.onStage?.('fidelity');
+  const fidelity = await measureFidelity(rules, scenario.inputs, model.evaluate, {
+    seed: settings.seed,
+    samples: settings.fidelitySamples,
+    confidence: settings.confidence,
+    advisories: k,
+  });
+  const { tool, version } = toolVersion();
+  return {
+    manifest: {
+      tool,
+      toolVersion: version,
+      command: 'mine',
+      date: new Date().toISOString(),
+      scenario: { path: scenario.scenarioPath, sha256: scenario.scenarioSha256, name: scenario.name },
+      model: { path: model.path, sha256: model.sha256 },
+      seed: settings.seed,
+      settings: { ...settings },
+      counts: {
+        samples: samples.n,
+        treeLeavesFull: countLeaves(full),
+        treeLeavesPruned: countLeaves(pruned),
+        rules: rules.length,
+      },
+    },
+    inputs: scenario.inputs,
+    advisories: scenario.advisories,
+    decision: scenario.decision,
+    rules: checked,
+    fidelity,
+  };
+}
+
+function countLeaves(tree: Tree): number {
+  let c = 0;
+  for (let i = 0; i < tree.nodeCount; i++) if (tree.feature[i] === -1) c++;
+  return c;
+}
