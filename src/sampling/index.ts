@@ -1,0 +1,12 @@
+/**
+ * Sampling stage: seeded generator, jittered grid, Sobol points and adaptive refinement near
+ * decision boundaries -> SampleSet; also the box samplers the checker uses.
+ */
+export { sampleDomain, BOUNDARY_SHARE_DEFAULT, BATCH_SIZE_DEFAULT, REFINE_ROUNDS, type SampleDomainOptions } from './sample-domain.js';
+export { uniformInBox } from './uniform-in-box.js';
+export { boxSurfacePoints } from './box-surface-points.js';
+export { createRng, type Rng } from './rng.js';
+export { sobol, SOBOL_MAX_DIMENSION } from './sobol.js';
+export { grid, gridCellsPerAxis } from './grid.js';
+export { refine, type LabelledSamples } from './refine.js';
+export type { Box } from './check-box.js';

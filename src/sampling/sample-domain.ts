@@ -1,0 +1,112 @@
+import { ToolError } from '../errors.js';
+import type { Evaluator, InputSpec, SampleSet } from '../types.js';
+import type { Box } from './check-box.js';
+import { grid, gridCellsPerAxis } from './grid.js';
+import { refine } from './refine.js';
+import { createRng } from './rng.js';
+import { sobol, SOBOL_MAX_DIMENSION } from './sobol.js';
+
+/** Share of the budget spent near boundaries by default; the rest covers the box evenly. */
+export const BOUNDARY_SHARE_DEFAULT = 0.6;
+/** Rows per evaluator call by default (matches the model stage's onnxruntime batch). */
+export const BATCH_SIZE_DEFAULT = 16_384;
+/** Refinement rounds: each sees the labels of the rounds before it, so boxes can shrink. */
+export const REFINE_ROUNDS = 4;
+/** Share of the space-filling part given to the jittered grid; Sobol points take the rest. */
+export const GRID_SHARE = 0.5;
+
+export interface SampleDomainOptions {
+  /** Seed of every random choice: the same seed gives the same SampleSet. */
+  readonly seed: number;
+  /** Exact number of samples returned. */
+  readonly budget: number;
+  /** Share of the budget for boundary refinement, in [0, 1); default BOUNDARY_SHARE_DEFAULT. */
+  readonly boundaryShare?: number;
+  /** Rows per evaluator call; default BATCH_SIZE_DEFAULT. */
+  readonly batchSize?: number;
+  /** Called after every evaluated batch with samples done and the budget. */
+  readonly onProgress?: (done: number, total: number) => void;
+}
+
+function fail(message: string): never {
+  throw new ToolError('SAMPLING_OPTIONS', `sampleDomain: ${message}`);
+}
+
+/**
+ * Samples the network over the input box: a jittered grid and digitally shifted Sobol points
+ * for the first (1 − boundaryShare) of the budget, then REFINE_ROUNDS rounds of adaptive
+ * refinement near the boundaries between advisories (see refine.ts) for the rest. Points are
+ * in scenario units (the model normalises). Deterministic: one seeded generator drives every
+ * choice in a fixed order, and batches are evaluated in order.
+ * @param inputs the scenario's inputs (their [min, max] ranges form the box; not changed)
+ * @param evaluate the controller, called with at most batchSize rows at a time
+ * @param options seed, budget, boundary share, batch size, progress callback
+ * @returns exactly `budget` labelled samples
+ * @throws ToolError (`SAMPLING_OPTIONS`, `SAMPLING_DIMENSION`, `SAMPLING_EVALUATOR`,
+ *   `SAMPLING_SEED`) for bad options, too many inputs, or an evaluator returning too few rows;
+ *   whatever the evaluator throws
+ */
+export async function sampleDomain(inputs: readonly InputSpec[], evaluate: Evaluator, options: SampleDomainOptions): Promise<SampleSet> {
+  const { seed, budget } = options;
+  const boundaryShare = options.boundaryShare ?? BOUNDARY_SHARE_DEFAULT;
+  const batchSize = options.batchSize ?? BATCH_SIZE_DEFAULT;
+  if (!Number.isSafeInteger(budget) || budget < 1) fail(`budget: expected a whole number >= 1, found ${budget}`);
+  if (!(boundaryShare >= 0 && boundaryShare < 1)) fail(`boundaryShare: expected a number in [0, 1), found ${boundaryShare}`);
+  if (!Number.isSafeInteger(batchSize) || batchSize < 1) fail(`batchSize: expected a whole number >= 1, found ${batchSize}`);
+  const d = inputs.length;
+  if (d < 1 || d > SOBOL_MAX_DIMENSION) {
+    throw new ToolError('SAMPLING_DIMENSION', `sampleDomain: expected 1 to ${SOBOL_MAX_DIMENSION} inputs, found ${d}`);
+  }
+  inputs.forEach((input, j) => {
+    if (!Number.isFinite(input.min) || !Number.isFinite(input.max) || input.min > input.max) {
+      fail(`inputs[${j}] "${input.name}": expected finite min <= max, found [${input.min}, ${input.max}]`);
+    }
+  });
+  const box: Box = inputs.map((input) => [input.min, input.max] as const);
+  const rng = createRng(seed);
+  const x = new Float64Array(budget * d);
+  const advisory = new Int32Array(budget);
+  const margin = new Float32Array(budget);
+  let filled = 0;
+
+  /** Evaluates `count` new rows of `points` in batches and appends them to the sample set. */
+  async function appendEvaluated(points: Float64Array, count: number): Promise<void> {
+    for (let s = 0; s < count; s += batchSize) {
+      const rows = Math.min(batchSize, count - s);
+      const chunk = points.subarray(s * d, (s + rows) * d);
+      const ev = await evaluate(chunk, rows);
+      if (ev.advisory.length < rows || ev.margin.length < rows) {
+        throw new ToolError('SAMPLING_EVALUATOR', `sampleDomain: evaluator returned ${ev.advisory.length} advisories and ${ev.margin.length} margins for ${rows} rows`);
+      }
+      x.set(chunk, filled * d);
+      advisory.set(ev.advisory.subarray(0, rows), filled);
+      margin.set(ev.margin.subarray(0, rows), filled);
+      filled += rows;
+      options.onProgress?.(filled, budget);
+    }
+  }
+
+  const refineTotal = Math.floor(budget * boundaryShare);
+  const initial = budget - refineTotal;
+  // a grid of one cell per axis is just one random point: leave it all to Sobol then
+  const gridBudget = gridCellsPerAxis(Math.floor(initial * GRID_SHARE), d) >= 2 ? Math.floor(initial * GRID_SHARE) : 0;
+  const gridPoints = grid(box, gridBudget, rng);
+  const gridCount = gridPoints.length / d;
+  const sobolCount = initial - gridCount;
+  const lowDiscrepancy = sobol(sobolCount, d, rng);
+  for (let i = 0; i < sobolCount; i++) {
+    for (let j = 0; j < d; j++) {
+      const [lo, hi] = box[j]!;
+      lowDiscrepancy[i * d + j] = lo + lowDiscrepancy[i * d + j]! * (hi - lo);
+    }
+  }
+  await appendEvaluated(gridPoints, gridCount);
+  await appendEvaluated(lowDiscrepancy, sobolCount);
+  for (let round = 0; round < REFINE_ROUNDS; round++) {
+    const count = Math.floor((refineTotal * (round + 1)) / REFINE_ROUNDS) - Math.floor((refineTotal * round) / REFINE_ROUNDS);
+    if (count === 0) continue;
+    const points = refine(box, { x, advisory, margin, n: filled }, count, round, rng);
+    await appendEvaluated(points, count);
+  }
+  return { d, n: budget, x, advisory, margin, seed };
+}

@@ -1,0 +1,42 @@
+import { describe, expect, it } from 'vitest';
+import { grid, gridCellsPerAxis } from '../../src/sampling/grid.js';
+import { createRng } from '../../src/sampling/rng.js';
+
+describe('gridCellsPerAxis', () => {
+  it('is the largest c with c^d within the budget, exact at perfect powers', () => {
+    // perfect powers are where a floating-point root can land just below the integer
+    expect(gridCellsPerAxis(1000, 3)).toBe(10);
+    expect(gridCellsPerAxis(999, 3)).toBe(9);
+    expect(gridCellsPerAxis(1024, 10)).toBe(2);
+    expect(gridCellsPerAxis(1023, 10)).toBe(1);
+    expect(gridCellsPerAxis(243, 5)).toBe(3);
+    expect(gridCellsPerAxis(0, 4)).toBe(0);
+  });
+});
+
+describe('grid', () => {
+  it('puts exactly one point in every cell of the c^d grid', () => {
+    const box = Object.freeze([[0, 3], [-1, 1], [100, 200]] as const);
+    const x = grid(box, 130, createRng(2)); // 5^3 = 125 cells
+    const n = x.length / 3;
+    expect(n).toBe(125);
+    const seen = new Int32Array(n);
+    for (let i = 0; i < n; i++) {
+      let cell = 0;
+      for (let j = 0; j < 3; j++) {
+        const [lo, hi] = box[j]!;
+        const c = Math.floor(((x[3 * i + j]! - lo) / (hi - lo)) * 5);
+        expect(c >= 0 && c < 5).toBe(true);
+        cell = cell * 5 + c;
+      }
+      seen[cell]!++;
+    }
+    expect(seen.every((c) => c === 1)).toBe(true);
+  });
+
+  it('jitters: two seeds give different points in the same cells', () => {
+    const a = grid([[0, 1], [0, 1]], 16, createRng(1));
+    const b = grid([[0, 1], [0, 1]], 16, createRng(2));
+    expect(Array.from(a)).not.toEqual(Array.from(b));
+  });
+});
