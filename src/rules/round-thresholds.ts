@@ -38,7 +38,8 @@ export interface RoundThresholdsOptions {
  * multiple next to the threshold that lies strictly inside the range of the node's samples on
  * that feature and keeps the accumulated fidelity loss within the tolerance. Within a step the
  * nearer multiple is tried first. If no step down to `READABLE_STEP_MIN_FRACTION` of the input's
- * range qualifies, or no sample reaches the node, the learned value is kept.
+ * range qualifies, the learned value is kept. A node no sample reaches (after its ancestors were
+ * rounded) costs nothing to change: it gets the coarsest value strictly inside its region.
  *
  * Fidelity is the share of samples whose leaf label equals their own label; the loss is measured
  * against the unrounded tree, net (a change that fixes samples refunds budget). Because the tree
@@ -79,18 +80,19 @@ export function roundThresholds(
 
   const order = new Int32Array(n);
   for (let i = 0; i < n; i++) order[i] = i;
+  // values of the current node's feature, laid out like `order`, so candidate scans read memory in sequence
+  const values = new Float64Array(n);
   // net gain in agreeing samples if node's threshold became c; applies the change when `apply`
   const change = (node: number, a: number, b: number, c: number, apply: boolean): number => {
-    const f = feature[node]!;
     const t = thr[node]!;
     const lo = Math.min(t, c);
     const hi = Math.max(t, c);
     const target = c > t ? left[node]! : right[node]!;
     let gain = 0;
     for (let p = a; p < b; p++) {
-      const i = order[p]!;
-      const v = x[i * d + f]!;
+      const v = values[p]!;
       if (!(v > lo && v <= hi)) continue;
+      const i = order[p]!;
       const now = label[leafOf(i, target)] === labels[i] ? 1 : 0;
       gain += now - correct[i]!;
       if (apply) correct[i] = now;
@@ -99,6 +101,10 @@ export function roundThresholds(
     return gain;
   };
 
+  // each node's region (domain cut by its ancestors' tests), used when no sample reaches it
+  const regionLo = new Float64Array(tree.nodeCount * d);
+  const regionHi = new Float64Array(tree.nodeCount * d);
+  for (let f = 0; f < d && tree.nodeCount > 0; f++) [regionLo[f], regionHi[f]] = [inputs[f]!.min, inputs[f]!.max];
   const stack: number[] = tree.nodeCount > 0 ? [0, 0, n] : [];
   while (stack.length > 0) {
     const b = stack.pop()!;
@@ -110,9 +116,11 @@ export function roundThresholds(
     let hi = -Infinity;
     for (let p = a; p < b; p++) {
       const v = x[order[p]! * d + f]!;
+      values[p] = v;
       if (v < lo) lo = v;
       if (v > hi) hi = v;
     }
+    if (a === b) [lo, hi] = [regionLo[node * d + f]!, regionHi[node * d + f]!];
     const finest = (inputs[f]!.max - inputs[f]!.min) * READABLE_STEP_MIN_FRACTION;
     search: for (const step of readableSteps(hi - lo, finest)) {
       for (const c of bracketingMultiples(thr[node]!, step)) {
@@ -129,11 +137,17 @@ export function roundThresholds(
     // partition the node's samples by the final threshold, then visit left before right
     let m = a;
     for (let p = a; p < b; p++) {
-      const i = order[p]!;
-      if (x[i * d + f]! <= thr[node]!) {
+      if (values[p]! <= thr[node]!) {
+        const i = order[p]!;
         order[p] = order[m]!;
         order[m++] = i;
       }
+    }
+    for (const [child, side] of [[left[node]!, 1], [right[node]!, 0]] as const) {
+      regionLo.copyWithin(child * d, node * d, node * d + d);
+      regionHi.copyWithin(child * d, node * d, node * d + d);
+      if (side === 1) regionHi[child * d + f] = Math.min(regionHi[node * d + f]!, thr[node]!);
+      else regionLo[child * d + f] = Math.max(regionLo[node * d + f]!, thr[node]!);
     }
     stack.push(right[node]!, m, b, left[node]!, a, m);
   }
