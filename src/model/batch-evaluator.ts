@@ -1,0 +1,102 @@
+import * as ort from 'onnxruntime-node';
+import { ModelError } from '../errors.js';
+import type { Evaluation, Evaluator, Scenario } from '../types.js';
+import { decideInPlace } from './decide-in-place.js';
+import type { GraphIo } from './graph-io.js';
+import { firstLine } from './open-session.js';
+import { toNetworkInputInPlace } from './to-network-input-in-place.js';
+
+/** What the evaluator needs to know about the model and the scenario. */
+export interface BatchEvaluatorSpec {
+  readonly session: ort.InferenceSession;
+  readonly io: GraphIo;
+  readonly scenario: Scenario;
+  /** Rows per onnxruntime call (the graph's fixed batch overrides it). */
+  readonly batchSize: number;
+  /** The model file, for messages. */
+  readonly path: string;
+}
+
+function describeRow(scenario: Scenario, x: Float64Array, row: number): string {
+  const d = scenario.inputs.length;
+  return scenario.inputs
+    .map((input, j) => `${input.name} = ${x[row * d + j]}${input.unit === '' ? '' : ` ${input.unit}`}`)
+    .join(', ');
+}
+
+/**
+ * Builds the model's Evaluator: inputs in scenario units → normalised float32 → onnxruntime in
+ * batches → scores, decision and margin. One float32 input buffer (and its tensor) is reused
+ * across batches and calls; calls are queued so that a call never overwrites the buffer while
+ * onnxruntime still has to read it (onnxruntime-node reads feeds on a later turn of the event
+ * loop). Costs per row: d conversions, one copy of k scores, one pass over them.
+ * @throws (from the evaluator) ModelError `MODEL_NONFINITE_SCORE` naming the first row with a
+ *   NaN or infinite score and its inputs in scenario units; `MODEL_RUN` when onnxruntime fails;
+ *   `MODEL_CLOSED` after close
+ */
+export function batchEvaluator(spec: BatchEvaluatorSpec): { evaluate: Evaluator; close(): Promise<void> } {
+  const { session, io, scenario, path } = spec;
+  const d = scenario.inputs.length;
+  const k = scenario.advisories.length;
+  const batch = io.fixedBatch ?? spec.batchSize;
+  const buffer = new Float32Array(batch * d);
+  const dims = (rows: number): number[] => (io.inputRank === 3 ? [rows, 1, d] : [rows, d]);
+  const fullTensor = new ort.Tensor('float32', buffer, dims(batch));
+  let queue: Promise<unknown> = Promise.resolve();
+  let closed = false;
+
+  async function run(x: Float64Array, n: number): Promise<Evaluation> {
+    if (closed) throw new ModelError('MODEL_CLOSED', `${path}: the model was closed`);
+    const scores = new Float32Array(n * k);
+    const advisory = new Int32Array(n);
+    const margin = new Float32Array(n);
+    for (let start = 0; start < n; start += batch) {
+      const rows = Math.min(batch, n - start);
+      toNetworkInputInPlace(x, start, rows, d, scenario.normalize, buffer);
+      let tensor = fullTensor;
+      if (rows < batch) {
+        if (io.fixedBatch === undefined) tensor = new ort.Tensor('float32', buffer.subarray(0, rows * d), dims(rows));
+        else buffer.fill(0, rows * d); // a graph with a fixed batch gets padding rows, ignored below
+      }
+      let out: Float32Array;
+      try {
+        const result = await session.run({ [io.inputName]: tensor });
+        out = result[io.outputName]!.data as Float32Array;
+      } catch (error) {
+        throw new ModelError('MODEL_RUN', `${path}: onnxruntime failed on rows ${start}–${start + rows - 1} (onnxruntime: ${firstLine(error)})`);
+      }
+      if (out.length !== tensor.dims[0]! * k) {
+        throw new ModelError('MODEL_WIDTH_MISMATCH', `${path} gives ${out.length / tensor.dims[0]!} scores, scenario lists ${k} advisories`);
+      }
+      const chunk = out.length === rows * k ? out : out.subarray(0, rows * k);
+      scores.set(chunk, start * k);
+      const bad = decideInPlace(chunk, rows, k, scenario.decision, advisory, margin, start);
+      if (bad >= 0) {
+        const row = start + bad;
+        const rowScores = Array.from(chunk.subarray(bad * k, bad * k + k));
+        const j = rowScores.findIndex((s) => !Number.isFinite(s));
+        throw new ModelError(
+          'MODEL_NONFINITE_SCORE',
+          `${path}: score ${rowScores[j]} for "${scenario.advisories[j]}" at input row ${row} (${describeRow(scenario, x, row)})`,
+        );
+      }
+    }
+    return { scores, advisory, margin };
+  }
+
+  const evaluate: Evaluator = (x, n) => {
+    if (!Number.isInteger(n) || n < 0 || x.length < n * d) {
+      return Promise.reject(new RangeError(`evaluate: expected n >= 0 rows of ${d} values, got n = ${n} and ${x.length} values`));
+    }
+    const next = queue.then(() => run(x, n));
+    queue = next.catch(() => undefined);
+    return next;
+  };
+  const close = async (): Promise<void> => {
+    if (closed) return;
+    closed = true;
+    await queue;
+    await session.release();
+  };
+  return { evaluate, close };
+}
