@@ -26,7 +26,9 @@ export const SURFACE_SHARE_DEFAULT = 0.1;
 
 /**
  * Checks each rule on fresh dense samples inside its box: counts the samples where the network
- * (run by the given evaluator) gives an advisory the rule does not allow, states the exact
+ * (run by the given evaluator) gives an advisory the rule does not allow, strictly ahead of
+ * every allowed advisory (exact ties, which occur on shared faces of constructed networks,
+ * are not violations), states the exact
  * one-sided upper confidence bound on the violation rate (Clopper & Pearson, "The use of
  * confidence or fiducial limits illustrated in the case of the binomial", Biometrika 26(4),
  * 1934), and keeps the worst counterexample (largest score margin of a wrong advisory over
@@ -63,8 +65,11 @@ export async function checkRules(
     let worstMargin = 0;
     for (let i = 0; i < n; i++) {
       if (allowedMask[ev.advisory[i]!] === 1) continue;
-      violations++;
+      // A tie between the winner and an allowed advisory is not a violation: the allowed
+      // advisory is among the network's best answers (see docs/checking.md).
       const m = violationMargin(ev.scores, i, k, allowedMask, options.decision);
+      if (!(m > 0)) continue;
+      violations++;
       if (worstRow < 0 || m > worstMargin) {
         worstRow = i;
         worstMargin = m;
