@@ -42,17 +42,20 @@ export function batchEvaluator(spec: BatchEvaluatorSpec): { evaluate: Evaluator;
   const buffer = new Float32Array(batch * d);
   const dims = (rows: number): number[] => (io.inputRank === 3 ? [rows, 1, d] : [rows, d]);
   const fullTensor = new ort.Tensor('float32', buffer, dims(batch));
+  const offset = scenario.normalize ? Float64Array.from(scenario.normalize.offset) : undefined;
+  const scale = scenario.normalize ? Float64Array.from(scenario.normalize.scale) : new Float64Array(d).fill(1);
   let queue: Promise<unknown> = Promise.resolve();
   let closed = false;
 
   async function run(x: Float64Array, n: number): Promise<Evaluation> {
     if (closed) throw new ModelError('MODEL_CLOSED', `${path}: the model was closed`);
-    const scores = new Float32Array(n * k);
+    // One batch: onnxruntime's own output array becomes the result (no copy, no allocation).
+    let scores = n <= batch ? new Float32Array(0) : new Float32Array(n * k);
     const advisory = new Int32Array(n);
     const margin = new Float32Array(n);
     for (let start = 0; start < n; start += batch) {
       const rows = Math.min(batch, n - start);
-      toNetworkInputInPlace(x, start, rows, d, scenario.normalize, buffer);
+      toNetworkInputInPlace(x, start, rows, d, offset, scale, buffer);
       let tensor = fullTensor;
       if (rows < batch) {
         if (io.fixedBatch === undefined) tensor = new ort.Tensor('float32', buffer.subarray(0, rows * d), dims(rows));
@@ -69,7 +72,8 @@ export function batchEvaluator(spec: BatchEvaluatorSpec): { evaluate: Evaluator;
         throw new ModelError('MODEL_WIDTH_MISMATCH', `${path} gives ${out.length / tensor.dims[0]!} scores, scenario lists ${k} advisories`);
       }
       const chunk = out.length === rows * k ? out : out.subarray(0, rows * k);
-      scores.set(chunk, start * k);
+      if (n <= batch) scores = chunk;
+      else scores.set(chunk, start * k);
       const bad = decideInPlace(chunk, rows, k, scenario.decision, advisory, margin, start);
       if (bad >= 0) {
         const row = start + bad;

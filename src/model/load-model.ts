@@ -36,7 +36,9 @@ async function probe(session: ort.InferenceSession, io: GraphIo, scenario: Scena
   const rows = io.fixedBatch ?? 1;
   const centre = Float64Array.from(scenario.inputs, (input) => (input.min + input.max) / 2);
   const buffer = new Float32Array(rows * d);
-  toNetworkInputInPlace(centre, 0, 1, d, scenario.normalize, buffer);
+  const norm = scenario.normalize;
+  const offset = norm ? Float64Array.from(norm.offset) : undefined;
+  toNetworkInputInPlace(centre, 0, 1, d, offset, norm ? Float64Array.from(norm.scale) : new Float64Array(d).fill(1), buffer);
   const dims = io.inputRank === 3 ? [rows, 1, d] : [rows, d];
   let size: number;
   try {

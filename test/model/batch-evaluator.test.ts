@@ -71,7 +71,16 @@ describe('Model.evaluate', () => {
     expect(b.margin).toEqual(a.margin);
   });
 
-  it('keeps concurrent calls apart although they share one input buffer', async () => {
+  it('returns results that later calls do not overwrite', async () => {
+    const scenario = scenarioOnDisk({ inputs: INPUTS, advisories: ['a', 'b', 'c'], model: LINEAR });
+    const model = await loadModel(scenario);
+    const first = await model.evaluate(Float64Array.from([1, 2]), 1);
+    await model.evaluate(Float64Array.from([5, 6]), 1);
+    await model.close();
+    expect(Array.from(first.scores)).toEqual([1, 2, 0.5]);
+  });
+
+it('keeps concurrent calls apart although they share one input buffer', async () => {
     const { scenarioPath } = writeBoxScenario(boxNetwork3d());
     const scenario = loadScenario(scenarioPath);
     const model = await loadModel(scenario, { batchSize: 4 });
