@@ -50,7 +50,7 @@ export function batchEvaluator(spec: BatchEvaluatorSpec): { evaluate: Evaluator;
   async function run(x: Float64Array, n: number): Promise<Evaluation> {
     if (closed) throw new ModelError('MODEL_CLOSED', `${path}: the model was closed`);
     // One batch: onnxruntime's own output array becomes the result (no copy, no allocation).
-    let scores = n <= batch ? new Float32Array(0) : new Float32Array(n * k);
+    let scores: Float32Array = n <= batch ? new Float32Array(0) : new Float32Array(n * k);
     const advisory = new Int32Array(n);
     const margin = new Float32Array(n);
     for (let start = 0; start < n; start += batch) {
