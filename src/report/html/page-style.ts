@@ -37,5 +37,6 @@ dl.kv dd { margin: 0; overflow-wrap: anywhere; }
 article.evidence { border-top: 1px solid var(--line); padding: 0.3rem 0 0.6rem; }
 article.evidence:target { background: #eef5ff; }
 .muted { color: var(--muted); }
+.scroll { overflow-x: auto; }
 @media print { .controls { display: none; } }
 `;

@@ -41,12 +41,12 @@ export function ruleTableHtml(table: RuleTable, texts: readonly string[]): strin
     `<label>status <select id="filter-status"><option value="">all</option>${stOptions}</select></label>`,
     `<span id="rule-count" class="muted">${table.rules.length} of ${table.rules.length} rules shown</span>`,
     '</div>',
-    '<table id="rules"><thead><tr>',
+    '<div class="scroll"><table id="rules"><thead><tr>',
     '<th data-sort="text">rule</th><th>when … expect …</th><th data-sort="text">advisory</th><th data-sort="text">status</th>',
     '<th class="num" data-sort="num">share of domain</th><th class="num" data-sort="num">samples</th><th class="num" data-sort="num">violations</th>',
     `<th class="num" data-sort="num">bound on violation rate${conf !== undefined ? ` (${pct(conf, 0)})` : ''}</th><th class="num" data-sort="num">proven share</th>`,
     '</tr></thead><tbody>',
     rows.join('\n'),
-    '</tbody></table></section>',
+    '</tbody></table></div></section>',
   ].join('\n');
 }

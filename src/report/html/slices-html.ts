@@ -18,6 +18,10 @@ function keyHtml(): string {
   return `<div class="key"><strong>Rule boxes cutting the plane</strong>${lines.join('')}${cross}</div>`;
 }
 
+function plural(n: number, one: string, many: string): string {
+  return `${n} ${n === 1 ? one : many}`;
+}
+
 function heldText(table: RuleTable, pair: readonly [number, number], x: readonly number[]): string {
   const parts = table.inputs.flatMap((inp, k) => (k === pair[0] || k === pair[1] ? [] : [`${e(inp.name)} = ${+x[k]!.toPrecision(6)}${inp.unit ? ` ${e(inp.unit)}` : ''}`]));
   return parts.length ? parts.join(', ') : 'no other inputs';
@@ -55,7 +59,7 @@ export function slicesHtml(table: RuleTable, slices: SliceSet): string {
       `<figure class="slice" data-pair="${pi}" data-held="${f.held}" data-outlines="${e(f.outlineIds.join(' '))}"${i === 0 ? '' : ' hidden'}>`,
       f.svg,
       `<figcaption>${e(table.inputs[f.pair[0]]!.name)} × ${e(table.inputs[f.pair[1]]!.name)}; ${e(held.label)}: ${heldText(table, f.pair, held.x)}. ` +
-        `${f.outlineIds.length} rule boxes cut this plane${f.pointIds.length ? `; ${f.pointIds.length} counterexamples near it` : ''}.</figcaption>`,
+        `${plural(f.outlineIds.length, 'rule box cuts', 'rule boxes cut')} this plane${f.pointIds.length ? `; ${plural(f.pointIds.length, 'counterexample lies', 'counterexamples lie')} near it` : ''}.</figcaption>`,
       '</figure>',
     );
   });
