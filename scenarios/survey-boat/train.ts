@@ -25,7 +25,7 @@ const TRAINING = {
   nearThreshold: 150_000,
   nearWidth: 0.02,
   hidden: [32, 32],
-  epochs: 30,
+  epochs: 50,
   batchSize: 128,
   learningRate: 3e-3,
   finalLearningRate: 5e-5,

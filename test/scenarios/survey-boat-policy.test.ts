@@ -6,6 +6,7 @@ import {
   surveyBoatPolicy,
 } from '../../scenarios/survey-boat/policy.js';
 import { policyThresholds, SURVEY_BOAT_BOX } from '../../scenarios/survey-boat/policy-thresholds.js';
+import { parseRuleFile } from '../../src/rules/index.js';
 import { createRng } from '../../src/train/index.js';
 
 /** A vessel: position x east, y north (nmi), course (deg true), speed (kn). */
@@ -223,5 +224,25 @@ describe('surveyBoatPolicy as a function of the domain', () => {
       expect((hi - scenario.normalize.offset[j]) / scenario.normalize.scale[j]).toBe(1);
     });
     expect([STARBOARD_SMALL, STARBOARD_LARGE, PORT_SMALL].map((a) => ADVISORIES[a])).toEqual(['starboard_small', 'starboard_large', 'port_small']);
+  });
+
+  it('satisfies every expert expectation in expectations.rules inside its box', () => {
+    const scenario = JSON.parse(readFileSync(new URL('../../scenarios/survey-boat/scenario.json', import.meta.url), 'utf8'));
+    const text = readFileSync(new URL('../../scenarios/survey-boat/expectations.rules', import.meta.url), 'utf8');
+    const { rules, warnings } = parseRuleFile(text, scenario.inputs, scenario.advisories, 'expectations.rules');
+    expect(warnings).toEqual([]);
+    expect(rules.length).toBeGreaterThanOrEqual(6);
+    const rng = createRng(31);
+    const x = new Float64Array(5);
+    for (const rule of rules) {
+      let violations = 0;
+      // Random interior points: the boxes are closed, the policy's thresholds half-open; the
+      // boundary planes have zero volume and are never drawn.
+      for (let i = 0; i < 20_000; i++) {
+        rule.box.forEach(([lo, hi], j) => (x[j] = lo + (hi - lo) * rng()));
+        if (!rule.allowed.includes(surveyBoatPolicy(x))) violations++;
+      }
+      expect(violations, rule.id).toBe(0);
+    }
   });
 });
