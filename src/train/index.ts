@@ -9,4 +9,4 @@ export { mlpLossGradient, mlpWorkspace, layerGradients, type LayerGradient, type
 export { adamStepInPlace, type AdamSettings } from './adam-step-in-place.js';
 export { heInit } from './he-init.js';
 export { createRng } from './create-rng.js';
-export { trainableLayer, type TrainableLayer } from './trainable-layer.js';
+export type { TrainableLayer } from './trainable-layer.js';
