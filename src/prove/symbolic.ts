@@ -1,0 +1,114 @@
+import type { AffineLayer } from './network.js';
+import type { Relaxation } from './relax.js';
+import { roundDown, roundUp } from './float-error.js';
+
+/**
+ * Forward symbolic bounds: every neuron carries a lower and an upper linear function of the
+ * network input, L(x) ≤ ẑ ≤ U(x) on the box, pushed forward layer by layer
+ * (S. Wang, K. Pei, J. Whitehouse, J. Yang, S. Jana, "Efficient Formal Safety Analysis of
+ * Neural Networks", NeurIPS 2018, symbolic linear relaxation; the same lines as
+ * relax.ts). With few inputs (d ≪ width) this costs width² · (d + 1) per layer, far less
+ * than back-substituting every neuron, and gives the intermediate bounds the linear method
+ * starts from; back-substitution stays for the final margins, where it is tighter.
+ *
+ * Float64 rounding: `mass` bounds Σ|terms| of each neuron's functions anywhere in the box
+ * (mass' = Σ_k|W_jk| · max_k mass_k + |b_j| + e_j), and concretised bounds move outward by
+ * SYMBOLIC_GUARD · mass, which exceeds the rounding of the ≤ 2^22 operations behind them.
+ */
+export interface Symbolic {
+  readonly d: number;
+  readonly width: number;
+  /** width × (d + 1): coefficients then constant of each lower function. */
+  readonly low: Float64Array;
+  readonly up: Float64Array;
+  readonly mass: Float64Array;
+}
+
+const SYMBOLIC_GUARD = 2 ** -30;
+
+/** The identity functions of the input box. */
+export function symbolicInput(lo: ArrayLike<number>, hi: ArrayLike<number>): Symbolic {
+  const d = lo.length;
+  const low = new Float64Array(d * (d + 1));
+  const mass = new Float64Array(d);
+  for (let i = 0; i < d; i++) {
+    low[i * (d + 1) + i] = 1;
+    mass[i] = Math.max(Math.abs(lo[i]!), Math.abs(hi[i]!));
+  }
+  return { d, width: d, low, up: Float64Array.from(low), mass };
+}
+
+/** Through ẑ' = W ŷ + b + δ, |δ| ≤ e: positive weights take like bounds, negative the opposite. */
+export function symbolicAffine(s: Symbolic, layer: AffineLayer, noise: Float64Array): Symbolic {
+  const { inSize, outSize, weights, bias } = layer;
+  const w1 = s.d + 1;
+  const low = new Float64Array(outSize * w1);
+  const up = new Float64Array(outSize * w1);
+  const mass = new Float64Array(outSize);
+  let maxMass = 0;
+  for (let k = 0; k < inSize; k++) maxMass = Math.max(maxMass, s.mass[k]!);
+  for (let j = 0; j < outSize; j++) {
+    const o = j * w1;
+    let absRow = 0;
+    for (let k = 0; k < inSize; k++) {
+      const w = weights[j * inSize + k]!;
+      if (w === 0) continue;
+      absRow += Math.abs(w);
+      const lowSrc = w > 0 ? s.low : s.up;
+      const upSrc = w > 0 ? s.up : s.low;
+      const src = k * w1;
+      for (let t = 0; t < w1; t++) {
+        low[o + t]! += w * lowSrc[src + t]!;
+        up[o + t]! += w * upSrc[src + t]!;
+      }
+    }
+    low[o + s.d]! += bias[j]! - noise[j]!;
+    up[o + s.d]! += bias[j]! + noise[j]!;
+    mass[j] = absRow * maxMass + Math.abs(bias[j]!) + noise[j]!;
+  }
+  return { d: s.d, width: outSize, low, up, mass };
+}
+
+/**
+ * Through an activation with relaxation lines of non-negative slope (true of every line in
+ * relax.ts): y ≥ a_L·ẑ + b_L ≥ a_L·L(x) + b_L, and likewise above; `guard` widens both
+ * (the runtime's activation error, 0 for ReLU).
+ */
+export function symbolicActivation(s: Symbolic, rel: Relaxation, guard: number): Symbolic {
+  const w1 = s.d + 1;
+  const low = new Float64Array(s.width * w1);
+  const up = new Float64Array(s.width * w1);
+  const mass = new Float64Array(s.width);
+  for (let j = 0; j < s.width; j++) {
+    const ls = rel.lowerSlope[j]!;
+    const us = rel.upperSlope[j]!;
+    const o = j * w1;
+    for (let t = 0; t < w1; t++) {
+      low[o + t] = ls * s.low[o + t]!;
+      up[o + t] = us * s.up[o + t]!;
+    }
+    low[o + s.d]! += rel.lowerIntercept[j]! - guard;
+    up[o + s.d]! += rel.upperIntercept[j]! + guard;
+    mass[j] = Math.max(ls, us) * s.mass[j]! + Math.max(Math.abs(rel.lowerIntercept[j]!), Math.abs(rel.upperIntercept[j]!)) + guard;
+  }
+  return { d: s.d, width: s.width, low, up, mass };
+}
+
+/** Intersects [l, u] in place with the box's range of the lower and upper functions. */
+export function tightenInPlace(s: Symbolic, lo: ArrayLike<number>, hi: ArrayLike<number>, l: Float64Array, u: Float64Array): void {
+  const d = s.d;
+  const w1 = d + 1;
+  for (let j = 0; j < s.width; j++) {
+    let a = s.low[j * w1 + d]!;
+    let b = s.up[j * w1 + d]!;
+    for (let i = 0; i < d; i++) {
+      const cl = s.low[j * w1 + i]!;
+      const cu = s.up[j * w1 + i]!;
+      a += cl >= 0 ? cl * lo[i]! : cl * hi[i]!;
+      b += cu >= 0 ? cu * hi[i]! : cu * lo[i]!;
+    }
+    const g = SYMBOLIC_GUARD * s.mass[j]!;
+    l[j] = Math.max(l[j]!, roundDown(a - g));
+    u[j] = Math.min(u[j]!, roundUp(b + g));
+  }
+}
