@@ -4,21 +4,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import Papa from 'papaparse';
 import { main } from '../../src/cli/main.js';
-import type { CliIo } from '../../src/cli/io.js';
+import { capture } from './helpers/capture.js';
 import { boxNetwork2d, writeBoxScenario } from '../fixtures/box-network.js';
-
-function capture(cwd: string): CliIo & { out: () => string; err: () => string } {
-  let out = '';
-  let err = '';
-  return {
-    stdout: (t) => (out += t),
-    stderr: (t) => (err += t),
-    isTTY: false,
-    cwd,
-    out: () => out,
-    err: () => err,
-  };
-}
 
 const SMALL = ['--samples', '20000', '--check-samples', '2000', '--fidelity-samples', '10000'];
 
