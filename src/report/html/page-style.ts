@@ -31,10 +31,11 @@ dl.kv dd { margin: 0; overflow-wrap: anywhere; }
 .status-proven { color: #0b5d1e; }
 .swatch { display: inline-block; width: 0.9em; height: 0.9em; border: 1px solid #444; vertical-align: -0.1em; margin-right: 0.3em; }
 .slice-view { display: flex; flex-wrap: wrap; gap: 1rem; align-items: flex-start; }
+figure.slice { margin: 0; max-width: 620px; }
 .slice svg { max-width: 100%; height: auto; }
 .key svg { vertical-align: middle; margin-right: 0.3rem; }
 .key div { margin: 0.2rem 0; }
-article.evidence { border-top: 1px solid var(--line); padding: 0.3rem 0 0.6rem; }
+article.evidence { border-top: 1px solid var(--line); padding: 0.3rem 0 0.6rem; content-visibility: auto; contain-intrinsic-size: auto 10rem; }
 article.evidence:target { background: #eef5ff; }
 .muted { color: var(--muted); }
 .scroll { overflow-x: auto; }
