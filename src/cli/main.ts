@@ -4,6 +4,8 @@ import { toolVersion } from '../version.js';
 import { EXIT, exitCodeFor } from './exit-codes.js';
 import { processIo, type CliIo } from './io.js';
 import { mineBuilder, runMine } from './commands/mine.js';
+import { reportBuilder, runReport } from './commands/report.js';
+import { exportBuilder, runExport } from './commands/export.js';
 
 class ParseFailure extends ToolError {
   constructor(message: string) {
@@ -25,8 +27,10 @@ export async function main(argv: readonly string[], io: CliIo = processIo()): Pr
     .command('mine <scenario>', 'sample the network, learn a tree, write checked rules to a run folder', mineBuilder, async (a) => {
       code = await runMine(a as never, io);
     })
+    .command('report <run>', 'write report.html of a run folder: rules, evidence and slice plots of the network', reportBuilder, async (a) => { code = await runReport(a as never, io); })
+    .command('export <run>', 'export a run as csv, md, json, smtlib or a verifiable bundle', exportBuilder, async (a) => { code = await runExport(a as never, io); })
     .example('$0 mine scenarios/survey-boat/scenario.json --out runs/demo', 'mine the demo scenario')
-    .demandCommand(1, 'name a command: mine')
+    .demandCommand(1, 'name a command: mine, report or export')
     .strict()
     .recommendCommands()
     .version(toolVersion().version)
