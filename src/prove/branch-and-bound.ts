@@ -57,7 +57,8 @@ interface Piece {
  * that fails, by linear relaxation; a piece is proven when for some allowed a every margin
  * a − j (rival j) has a lower bound above `minMargin` with the float32 allowance included.
  * Unproven pieces offer two candidates (the centre and the corner minimising the linear bound),
- * screened by the forward pass and confirmed by `confirm`; otherwise they are halved along
+ * screened by the forward pass (outside the allowed set, or within the piece's float32
+ * allowance of it) and confirmed by `confirm`; otherwise they are halved along
  * the input with the largest width × |coefficient of the linear bound|.
  * A pure function of its arguments apart from `now` and `confirm`.
  *
@@ -129,6 +130,7 @@ export async function proveBox(net: Network, box: Box, allowed: readonly number[
     intervalBounds(mnet, nlo, nhi, nb, ibp);
     const open: { piece: Piece; dim: number }[] = [];
     const candidates: number[] = [];
+    const screen: number[] = [];
     for (let b = 0; b < nb; b++) {
       const p = batch[b]!;
       if (provingGroup(ibp.subarray(b * spec.rows, (b + 1) * spec.rows), spec, minMargin) >= 0) {
@@ -150,11 +152,13 @@ export async function proveBox(net: Network, box: Box, allowed: readonly number[
         continue;
       }
       const r = worstRow(lin.lower, spec);
+      const allowance = lin.overflow ? Infinity : lin.slack[r]!;
+      screen.push(allowance, allowance);
       for (let i = 0; i < d; i++) candidates.push(0.5 * p.lo[i]! + 0.5 * p.hi[i]!);
       for (let i = 0; i < d; i++) candidates.push(toScenarioUnits(lin.minimiser[r * d + i]!, i, options.normalize, p.lo[i]!, p.hi[i]!));
       open.push({ piece: p, dim: splitDimension(lin, r, p, rootWidth, options.normalize) });
     }
-    const cex = await confirmCandidates(net, Float64Array.from(candidates), candidates.length / d, allowedSet, decision, options.normalize, options.confirm);
+    const cex = await confirmCandidates(net, Float64Array.from(candidates), candidates.length / d, allowedSet, decision, options.normalize, options.confirm, screen);
     if (cex) return result('refuted', cex);
     for (const { piece, dim } of open) {
       const a = dim >= 0 ? piece.lo[dim]! : 0;

@@ -17,10 +17,12 @@ export interface ProofCounterexample {
 export type ConfirmFn = (points: Float64Array, n: number) => Promise<Int32Array>;
 
 /**
- * Screens candidate points with the TypeScript forward pass, sends those it finds outside
- * the allowed set to `confirm` (the runtime), and returns the first point both agree on.
+ * Screens candidate points with the TypeScript forward pass, sends to `confirm` (the runtime)
+ * those it finds outside the allowed set or within `screen[r]` of it (the float32 allowance:
+ * there the runtime's rounding may decide), and returns the first point the runtime confirms.
  *
  * @param points n × d candidate points in scenario units (not changed)
+ * @param screen per point, the forward-pass margin at or below which the runtime is asked
  */
 export async function confirmCandidates(
   net: Network,
@@ -30,14 +32,26 @@ export async function confirmCandidates(
   decision: Decision,
   normalize: Normalization | undefined,
   confirm: ConfirmFn,
+  screen: ArrayLike<number>,
 ): Promise<ProofCounterexample | undefined> {
   if (n === 0) return undefined;
   const d = net.inputSize;
   const k = net.outputSize;
   const scores = forward(net, toNetworkInput(points, n, d, normalize), n);
   const adv = decide(scores, n, k, decision);
+  const sign = decision === 'argmax' ? 1 : -1;
   const suspects: number[] = [];
-  for (let r = 0; r < n; r++) if (!allowed.has(adv[r]!)) suspects.push(r);
+  for (let r = 0; r < n; r++) {
+    // margin = best allowed score − best rival score (signs flipped for argmin)
+    let bestIn = -Infinity;
+    let bestOut = -Infinity;
+    for (let j = 0; j < k; j++) {
+      const v = sign * scores[r * k + j]!;
+      if (allowed.has(j)) bestIn = Math.max(bestIn, v);
+      else bestOut = Math.max(bestOut, v);
+    }
+    if (!allowed.has(adv[r]!) || bestIn - bestOut <= screen[r]!) suspects.push(r);
+  }
   if (suspects.length === 0) return undefined;
   const batch = new Float64Array(suspects.length * d);
   suspects.forEach((r, t) => batch.set(points.subarray(r * d, r * d + d), t * d));

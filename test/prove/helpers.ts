@@ -109,3 +109,68 @@ export function samplePoints(rng: () => number, lo: ArrayLike<number>, hi: Array
   }
   return x;
 }
+
+/**
+ * A float32 evaluation of a dense ReLU MLP that rounds after every operation, summing in the
+ * given order: one of the evaluations a float32 runtime may perform.
+ */
+export function forwardFloat32(layers: readonly DenseLayer[], x: ArrayLike<number>, order: 'forward' | 'reverse'): Float64Array {
+  let cur = Array.from(x, Math.fround);
+  for (const layer of layers) {
+    const next: number[] = [];
+    for (let j = 0; j < layer.outSize; j++) {
+      let s = 0;
+      for (let t = 0; t < layer.inSize; t++) {
+        const i = order === 'forward' ? t : layer.inSize - 1 - t;
+        s = Math.fround(s + Math.fround(layer.weights[j * layer.inSize + i]! * cur[i]!));
+      }
+      s = Math.fround(s + layer.bias[j]!);
+      next.push(layer.activation === 'relu' ? Math.max(0, s) : s);
+    }
+    cur = next;
+  }
+  return Float64Array.from(cur);
+}
+
+/**
+ * The runtime's advisory for points in scenario units, as the model stage computes it:
+ * fl32((x − offset) / scale), run by onnxruntime, then argmax/argmin (first index on ties).
+ * Call `release` when done.
+ */
+export async function ortAdvisor(
+  bytes: Uint8Array,
+  d: number,
+  decision: 'argmax' | 'argmin',
+  normalize?: { offset: readonly number[]; scale: readonly number[] },
+): Promise<{ confirm: (x: Float64Array, n: number) => Promise<Int32Array>; calls: () => number; release: () => Promise<void> }> {
+  const session = await ort.InferenceSession.create(bytes);
+  let calls = 0;
+  const confirm = async (x: Float64Array, n: number): Promise<Int32Array> => {
+    calls++;
+    const input = new Float32Array(n * d);
+    for (let r = 0; r < n; r++) {
+      for (let i = 0; i < d; i++) {
+        const v = x[r * d + i]!;
+        input[r * d + i] = normalize ? (v - normalize.offset[i]!) / normalize.scale[i]! : v;
+      }
+    }
+    const out = await session.run({ [session.inputNames[0]!]: new ort.Tensor('float32', input, [n, d]) });
+    const y = out[session.outputNames[0]!]!.data as Float32Array;
+    const k = y.length / n;
+    const adv = new Int32Array(n);
+    const sign = decision === 'argmax' ? 1 : -1;
+    for (let r = 0; r < n; r++) {
+      let best = 0;
+      for (let j = 1; j < k; j++) if (sign * y[r * k + j]! > sign * y[r * k + best]!) best = j;
+      adv[r] = best;
+    }
+    return adv;
+  };
+  return { confirm, calls: () => calls, release: () => session.release() };
+}
+
+/** A clock for proveBox that advances by `step` milliseconds per reading (no wall clock). */
+export function steppingClock(step: number): () => number {
+  let t = 0;
+  return () => (t += step);
+}
