@@ -32,7 +32,8 @@ export function boxSurfacePoints(box: Box, n: number, rng: Rng): Float64Array {
     const axis = face >>> 1;
     const row = i * d;
     for (let j = 0; j < d; j++) {
-      const [lo, hi] = box[j]!;
+      const lo = box[j]![0];
+      const hi = box[j]![1];
       out[row + j] = j === axis ? (face & 1 ? hi : lo) : lo + rng() * (hi - lo);
     }
   }

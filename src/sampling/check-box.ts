@@ -28,3 +28,13 @@ export function checkCount(n: number, where: string): void {
     throw new ToolError('SAMPLING_COUNT', `${where}: expected a whole number of points >= 0, found ${n}`);
   }
 }
+
+/**
+ * Checks that `out` has room for `count` rows of d values from row `row` on.
+ * @throws ToolError (`SAMPLING_COUNT`) otherwise
+ */
+export function checkRoom(out: Float64Array, row: number, count: number, d: number, where: string): void {
+  if (!Number.isSafeInteger(row) || row < 0 || (row + count) * d > out.length) {
+    throw new ToolError('SAMPLING_COUNT', `${where}: expected room for ${count} rows from row ${row}, found ${Math.floor(out.length / d)} rows`);
+  }
+}

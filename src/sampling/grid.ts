@@ -1,4 +1,4 @@
-import { checkBox, checkCount, type Box } from './check-box.js';
+import { checkBox, checkCount, checkRoom, type Box } from './check-box.js';
 import type { Rng } from './rng.js';
 
 /**
@@ -32,22 +32,38 @@ export function gridCellsPerAxis(budget: number, d: number): number {
 export function grid(box: Box, budget: number, rng: Rng): Float64Array {
   checkBox(box, 'grid');
   checkCount(budget, 'grid');
+  const out = new Float64Array(gridCellsPerAxis(budget, box.length) ** box.length * box.length);
+  gridInPlace(box, budget, rng, out, 0);
+  return out;
+}
+
+/**
+ * As `grid`, but writes the points into `out` from row `row` on (d values a row).
+ * @returns the number of points written, c^d
+ * @throws ToolError (`SAMPLING_BOX`, `SAMPLING_COUNT`) for a bad box or budget, or too small an `out`
+ */
+export function gridInPlace(box: Box, budget: number, rng: Rng, out: Float64Array, row: number): number {
+  checkBox(box, 'grid');
+  checkCount(budget, 'grid');
   const d = box.length;
   const c = gridCellsPerAxis(budget, d);
   const n = c ** d;
-  const out = new Float64Array(n * d);
+  checkRoom(out, row, n, d, 'grid');
   const cell = new Int32Array(d);
+  const lo = new Float64Array(d);
+  const step = new Float64Array(d);
+  for (let j = 0; j < d; j++) {
+    lo[j] = box[j]![0];
+    step[j] = (box[j]![1] - box[j]![0]) / c;
+  }
   for (let i = 0; i < n; i++) {
-    const row = i * d;
-    for (let j = 0; j < d; j++) {
-      const [lo, hi] = box[j]!;
-      out[row + j] = lo + ((cell[j]! + rng()) / c) * (hi - lo);
-    }
+    const at = (row + i) * d;
+    for (let j = 0; j < d; j++) out[at + j] = lo[j]! + (cell[j]! + rng()) * step[j]!;
     // odometer increment, last axis fastest
     for (let j = d - 1; j >= 0; j--) {
       if (++cell[j]! < c) break;
       cell[j] = 0;
     }
   }
-  return out;
+  return n;
 }

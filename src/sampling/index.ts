@@ -6,7 +6,7 @@ export { sampleDomain, BOUNDARY_SHARE_DEFAULT, BATCH_SIZE_DEFAULT, REFINE_ROUNDS
 export { uniformInBox } from './uniform-in-box.js';
 export { boxSurfacePoints } from './box-surface-points.js';
 export { createRng, type Rng } from './rng.js';
-export { sobol, SOBOL_MAX_DIMENSION } from './sobol.js';
-export { grid, gridCellsPerAxis } from './grid.js';
-export { refine, type LabelledSamples } from './refine.js';
+export { sobol, sobolInPlace, SOBOL_MAX_DIMENSION } from './sobol.js';
+export { grid, gridInPlace, gridCellsPerAxis } from './grid.js';
+export { refine, refineInPlace, type LabelledSamples } from './refine.js';
 export type { Box } from './check-box.js';

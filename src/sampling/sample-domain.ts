@@ -1,10 +1,10 @@
 import { ToolError } from '../errors.js';
 import type { Evaluator, InputSpec, SampleSet } from '../types.js';
 import type { Box } from './check-box.js';
-import { grid, gridCellsPerAxis } from './grid.js';
-import { refine } from './refine.js';
+import { gridCellsPerAxis, gridInPlace } from './grid.js';
+import { refineInPlace } from './refine.js';
 import { createRng } from './rng.js';
-import { sobol, SOBOL_MAX_DIMENSION } from './sobol.js';
+import { SOBOL_MAX_DIMENSION, sobolInPlace } from './sobol.js';
 
 /** Share of the budget spent near boundaries by default; the rest covers the box evenly. */
 export const BOUNDARY_SHARE_DEFAULT = 0.6;
@@ -69,44 +69,40 @@ export async function sampleDomain(inputs: readonly InputSpec[], evaluate: Evalu
   const margin = new Float32Array(budget);
   let filled = 0;
 
-  /** Evaluates `count` new rows of `points` in batches and appends them to the sample set. */
-  async function appendEvaluated(points: Float64Array, count: number): Promise<void> {
+  /** Evaluates rows [filled, filled + count) of x, already written, in batches. */
+  async function evaluateNew(count: number): Promise<void> {
     for (let s = 0; s < count; s += batchSize) {
       const rows = Math.min(batchSize, count - s);
-      const chunk = points.subarray(s * d, (s + rows) * d);
-      const ev = await evaluate(chunk, rows);
+      const ev = await evaluate(x.subarray(filled * d, (filled + rows) * d), rows);
       if (ev.advisory.length < rows || ev.margin.length < rows) {
         throw new ToolError('SAMPLING_EVALUATOR', `sampleDomain: evaluator returned ${ev.advisory.length} advisories and ${ev.margin.length} margins for ${rows} rows`);
       }
-      x.set(chunk, filled * d);
-      advisory.set(ev.advisory.subarray(0, rows), filled);
-      margin.set(ev.margin.subarray(0, rows), filled);
+      advisory.set(ev.advisory.length === rows ? ev.advisory : ev.advisory.subarray(0, rows), filled);
+      margin.set(ev.margin.length === rows ? ev.margin : ev.margin.subarray(0, rows), filled);
       filled += rows;
       options.onProgress?.(filled, budget);
     }
   }
 
+  // points are written straight into x: no intermediate arrays (fresh memory is slow to fault in)
   const refineTotal = Math.floor(budget * boundaryShare);
   const initial = budget - refineTotal;
   // a grid of one cell per axis is just one random point: leave it all to Sobol then
   const gridBudget = gridCellsPerAxis(Math.floor(initial * GRID_SHARE), d) >= 2 ? Math.floor(initial * GRID_SHARE) : 0;
-  const gridPoints = grid(box, gridBudget, rng);
-  const gridCount = gridPoints.length / d;
+  const gridCount = gridInPlace(box, gridBudget, rng, x, 0);
   const sobolCount = initial - gridCount;
-  const lowDiscrepancy = sobol(sobolCount, d, rng);
-  for (let i = 0; i < sobolCount; i++) {
-    for (let j = 0; j < d; j++) {
-      const [lo, hi] = box[j]!;
-      lowDiscrepancy[i * d + j] = lo + lowDiscrepancy[i * d + j]! * (hi - lo);
-    }
+  sobolInPlace(sobolCount, d, rng, x, gridCount);
+  const lo = Float64Array.from(inputs, (input) => input.min);
+  const width = Float64Array.from(inputs, (input) => input.max - input.min);
+  for (let i = gridCount; i < initial; i++) {
+    for (let j = 0; j < d; j++) x[i * d + j] = lo[j]! + x[i * d + j]! * width[j]!;
   }
-  await appendEvaluated(gridPoints, gridCount);
-  await appendEvaluated(lowDiscrepancy, sobolCount);
+  await evaluateNew(initial);
   for (let round = 0; round < REFINE_ROUNDS; round++) {
     const count = Math.floor((refineTotal * (round + 1)) / REFINE_ROUNDS) - Math.floor((refineTotal * round) / REFINE_ROUNDS);
     if (count === 0) continue;
-    const points = refine(box, { x, advisory, margin, n: filled }, count, round, rng);
-    await appendEvaluated(points, count);
+    refineInPlace(box, { x, advisory, margin, n: filled }, count, round, rng, x, filled);
+    await evaluateNew(count);
   }
   return { d, n: budget, x, advisory, margin, seed };
 }

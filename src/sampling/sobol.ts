@@ -18,6 +18,7 @@
  * of the first 2^m points, which is why it was chosen.
  */
 import { ToolError } from '../errors.js';
+import { checkRoom } from './check-box.js';
 import type { Rng } from './rng.js';
 
 /**
@@ -58,24 +59,24 @@ const TWO_POW_32 = 4294967296;
 /**
  * Direction numbers V_k (k = 1..32) of each dimension, scaled to 32 bits, by the recurrence of
  * Bratley & Fox (ACM TOMS 14(1), 1988, Algorithm 659) as written in Joe & Kuo's reference code.
- * @returns d × 32 words, row per dimension
+ * @returns d × 32 words (bit patterns in Int32 storage), row per dimension
  */
-function directionNumbers(d: number): Uint32Array {
-  const v = new Uint32Array(d * BITS);
-  for (let k = 0; k < BITS; k++) v[k] = 2 ** (BITS - 1 - k);
+function directionNumbers(d: number): Int32Array {
+  const v = new Int32Array(d * BITS);
+  for (let k = 0; k < BITS; k++) v[k] = 2 ** (BITS - 1 - k) | 0;
   for (let j = 1; j < d; j++) {
     const row = JOE_KUO_ROWS[j - 1]!;
     const s = row[0]!;
     const a = row[1]!;
     const base = j * BITS;
-    for (let i = 1; i <= s; i++) v[base + i - 1] = row[1 + i]! * 2 ** (BITS - i);
+    for (let i = 1; i <= s; i++) v[base + i - 1] = (row[1 + i]! * 2 ** (BITS - i)) | 0;
     for (let i = s + 1; i <= BITS; i++) {
       const prev = v[base + i - s - 1]!;
       let value = prev ^ (prev >>> s);
       for (let k = 1; k < s; k++) {
         if ((a >>> (s - 1 - k)) & 1) value ^= v[base + i - k - 1]!;
       }
-      v[base + i - 1] = value >>> 0;
+      v[base + i - 1] = value;
     }
   }
   return v;
@@ -92,17 +93,34 @@ function directionNumbers(d: number): Uint32Array {
  * Cost: O(n·d) after O(32·d) set-up.
  */
 export function sobol(n: number, d: number, rng?: Rng): Float64Array {
+  checkArguments(n, d);
+  const out = new Float64Array(n * d);
+  sobolInPlace(n, d, rng, out, 0);
+  return out;
+}
+
+function checkArguments(n: number, d: number): void {
   if (!Number.isInteger(d) || d < 1 || d > SOBOL_MAX_DIMENSION) {
     throw new ToolError('SAMPLING_DIMENSION', `sobol: expected 1 to ${SOBOL_MAX_DIMENSION} dimensions, found ${d}`);
   }
   if (!Number.isInteger(n) || n < 0 || n > TWO_POW_32) {
     throw new ToolError('SAMPLING_COUNT', `sobol: expected 0 to 2^32 points, found ${n}`);
   }
+}
+
+/**
+ * As `sobol`, but writes the points into `out` from row `row` on (d values a row); `rng`
+ * undefined gives the plain sequence.
+ * @throws ToolError (`SAMPLING_DIMENSION`, `SAMPLING_COUNT`) for d, n or `out` out of range
+ */
+export function sobolInPlace(n: number, d: number, rng: Rng | undefined, out: Float64Array, row: number): void {
+  checkArguments(n, d);
+  checkRoom(out, row, n, d, 'sobol');
   const v = directionNumbers(d);
-  const shift = new Uint32Array(d);
-  if (rng) for (let j = 0; j < d; j++) shift[j] = Math.floor(rng() * TWO_POW_32);
-  const x = new Uint32Array(d);
-  const out = new Float64Array(n * d);
+  // Int32 storage keeps every word a small integer for the JIT; >>> 0 reads it unsigned
+  const shift = new Int32Array(d);
+  if (rng) for (let j = 0; j < d; j++) shift[j] = Math.floor(rng() * TWO_POW_32) | 0;
+  const x = new Int32Array(d);
   for (let i = 0; i < n; i++) {
     if (i > 0) {
       // Gray-code step: flip direction number c, the index of the lowest zero bit of i − 1
@@ -110,8 +128,7 @@ export function sobol(n: number, d: number, rng?: Rng): Float64Array {
       const c = 31 - Math.clz32(~m & (m + 1));
       for (let j = 0; j < d; j++) x[j] = x[j]! ^ v[j * BITS + c]!;
     }
-    const row = i * d;
-    for (let j = 0; j < d; j++) out[row + j] = ((x[j]! ^ shift[j]!) >>> 0) * TWO_POW_MINUS_32;
+    const at = (row + i) * d;
+    for (let j = 0; j < d; j++) out[at + j] = ((x[j]! ^ shift[j]!) >>> 0) * TWO_POW_MINUS_32;
   }
-  return out;
 }
