@@ -206,4 +206,14 @@ export interface RuleTable {
   readonly decision: Decision;
   readonly rules: readonly CheckedRule[];
   readonly fidelity?: Fidelity;
+  /** Share of the domain's volume covered by proven rules, in total and per advisory. */
+  readonly coverage?: Coverage;
+  /** Remarks a reviewer must see (e.g. why nothing was proved). */
+  readonly notes?: readonly string[];
+}
+
+/** Share of the input domain's volume covered by proven rules (union of their boxes). */
+export interface Coverage {
+  readonly total: number;
+  readonly perAdvisory: readonly number[];
 }

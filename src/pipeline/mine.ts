@@ -4,6 +4,8 @@ import { learnTree, pruneSequence } from '../learn/index.js';
 import { mergeRules, roundThresholds, treeToRules } from '../rules/index.js';
 import { checkRules, measureFidelity } from '../check/index.js';
 import { toolVersion } from '../version.js';
+import { proveTable } from './prove-table.js';
+import { readNetworkOf } from './read-network.js';
 
 export interface MineSettings {
   readonly seed: number;
@@ -21,11 +23,18 @@ export interface MineSettings {
   readonly fidelitySamples: number;
   /** Confidence of bounds and intervals, e.g. 0.95. */
   readonly confidence: number;
+  /** Prove the rules by bound propagation (when the graph is supported). */
+  readonly prove: boolean;
+  /** Proof budget per rule: pieces bounded, and seconds as a safety net. */
+  readonly proveBoxes: number;
+  readonly proveSeconds: number;
 }
 
 export interface MineHooks {
   readonly onStage?: (stage: string) => void;
   readonly onProgress?: (stage: string, done: number, total: number) => void;
+  /** Clock in milliseconds for proof budgets; default performance.now. */
+  readonly now?: () => number;
 }
 
 /** Rules of a tree after merging same-advisory neighbours. */
@@ -82,6 +91,18 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
     decision: scenario.decision,
     onProgress: (done, total) => hooks.onProgress?.('checking', done, total),
   });
+  let final = checked;
+  const notes: string[] = [];
+  if (settings.prove) {
+    hooks.onStage?.('proving');
+    const proved = await proveTable(checked, readNetworkOf(model), scenario, model, {
+      maxBoxes: settings.proveBoxes,
+      maxSeconds: settings.proveSeconds,
+      now: hooks.now ?? (() => performance.now()),
+    }, hooks);
+    final = proved.rules;
+    if (proved.unsupported) notes.push(proved.unsupported);
+  }
   hooks.onStage?.('fidelity');
   const fidelity = await measureFidelity(rules, scenario.inputs, model.evaluate, {
     seed: settings.seed,
@@ -110,8 +131,9 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
     inputs: scenario.inputs,
     advisories: scenario.advisories,
     decision: scenario.decision,
-    rules: checked,
+    rules: final,
     fidelity,
+    ...(notes.length > 0 ? { notes } : {}),
   };
 }
 

@@ -18,6 +18,9 @@ const SETTINGS = {
   checkSamples: 4_000,
   fidelitySamples: 20_000,
   confidence: 0.95,
+  prove: false,
+  proveBoxes: 1,
+  proveSeconds: 1,
 };
 
 /**

@@ -18,6 +18,8 @@ export const MINE_DEFAULTS = {
   roundTolerance: 0.001,
   checkSamples: 20_000,
   fidelitySamples: 100_000,
+  proveBoxes: 20_000,
+  proveSeconds: 20,
 } as const;
 
 export function mineBuilder<T>(y: Argv<T>) {
@@ -31,6 +33,9 @@ export function mineBuilder<T>(y: Argv<T>) {
     .option('round-tolerance', { type: 'number', default: MINE_DEFAULTS.roundTolerance, describe: 'agreement that readable thresholds may cost (0..1)' })
     .option('check-samples', { type: 'number', default: MINE_DEFAULTS.checkSamples, describe: 'dense samples per rule for checking' })
     .option('fidelity-samples', { type: 'number', default: MINE_DEFAULTS.fidelitySamples, describe: 'fresh uniform samples for the fidelity figures' })
+    .option('prove', { type: 'boolean', default: true, describe: 'prove the rules by bound propagation (--no-prove to skip)' })
+    .option('prove-boxes', { type: 'number', default: MINE_DEFAULTS.proveBoxes, describe: 'proof budget per rule: pieces of the box bounded' })
+    .option('prove-seconds', { type: 'number', default: MINE_DEFAULTS.proveSeconds, describe: 'proof budget per rule: seconds (safety net)' })
     .example('$0 mine scenarios/survey-boat/scenario.json', 'mine the demo scenario into runs/survey-boat-<timestamp>')
     .example('$0 mine scenario.json --model retrained.onnx --out runs/v2 --max-rules 40', 'mine another model file with a smaller table');
 }
@@ -39,6 +44,11 @@ type MineArgs = Awaited<ReturnType<ReturnType<typeof mineBuilder>['parseAsync']>
 
 function positiveInt(name: string, v: number): number {
   if (!Number.isInteger(v) || v < 1) throw new UsageError(`--${name}: expected a positive integer, found ${v}`);
+  return v;
+}
+
+function positiveNumber(name: string, v: number): number {
+  if (!(Number.isFinite(v) && v > 0)) throw new UsageError(`--${name}: expected a positive number, found ${v}`);
   return v;
 }
 
@@ -61,6 +71,9 @@ export async function runMine(args: MineArgs, io: CliIo): Promise<number> {
     checkSamples: positiveInt('check-samples', args['check-samples']),
     fidelitySamples: positiveInt('fidelity-samples', args['fidelity-samples']),
     confidence,
+    prove: args.prove,
+    proveBoxes: positiveInt('prove-boxes', args['prove-boxes']),
+    proveSeconds: positiveNumber('prove-seconds', args['prove-seconds']),
   };
   const scenario = loadScenario(resolve(io.cwd, String(args.scenario)));
   const modelOptions = { threads: positiveInt('threads', args.threads), ...(args.model ? { modelPath: resolve(io.cwd, args.model) } : {}) };
