@@ -6,15 +6,16 @@ import { rulesJsonText } from './rules-json.js';
 import { rulesMdText } from './rules-md.js';
 
 /**
- * Writes rules.json, rules.csv and rules.md into a run folder, all or nothing: every file is
+ * Writes rules.json, rules.csv and rules.md (and any extra files, e.g. report.html) into a run folder, all or nothing: every file is
  * staged under a temporary name first, so a failure leaves earlier outputs untouched.
  * @returns the paths written
  */
-export function writeRunFolder(dir: string, table: RuleTable): string[] {
+export function writeRunFolder(dir: string, table: RuleTable, extra: ReadonlyArray<{ name: string; data: string | Uint8Array }> = []): string[] {
   const files = [
     { path: join(dir, 'rules.json'), data: rulesJsonText(table) },
     { path: join(dir, 'rules.csv'), data: rulesCsvText(table) },
     { path: join(dir, 'rules.md'), data: rulesMdText(table) },
+    ...extra.map((e) => ({ path: join(dir, e.name), data: e.data })),
   ];
   writeFilesAtomic(files);
   return files.map((f) => f.path);

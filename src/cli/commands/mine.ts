@@ -4,6 +4,7 @@ import { loadScenario } from '../../scenario/index.js';
 import { loadModel } from '../../model/index.js';
 import { mine } from '../../pipeline/mine.js';
 import { summaryText, toRulesJson, writeRunFolder } from '../../report/index.js';
+import { buildReportHtml } from '../../report/html/index.js';
 import { UsageError } from '../../errors.js';
 import type { CliIo } from '../io.js';
 import { commonOptions, samplingOptions } from '../options.js';
@@ -33,6 +34,7 @@ export function mineBuilder<T>(y: Argv<T>) {
     .option('round-tolerance', { type: 'number', default: MINE_DEFAULTS.roundTolerance, describe: 'agreement that readable thresholds may cost (0..1)' })
     .option('check-samples', { type: 'number', default: MINE_DEFAULTS.checkSamples, describe: 'dense samples per rule for checking' })
     .option('fidelity-samples', { type: 'number', default: MINE_DEFAULTS.fidelitySamples, describe: 'fresh uniform samples for the fidelity figures' })
+    .option('report', { type: 'boolean', default: true, describe: 'write report.html with slice plots (--no-report to skip)' })
     .option('prove', { type: 'boolean', default: true, describe: 'prove the rules by bound propagation (--no-prove to skip)' })
     .option('prove-boxes', { type: 'number', default: MINE_DEFAULTS.proveBoxes, describe: 'proof budget per rule: pieces of the box bounded' })
     .option('prove-seconds', { type: 'number', default: MINE_DEFAULTS.proveSeconds, describe: 'proof budget per rule: seconds (safety net)' })
@@ -83,7 +85,12 @@ export async function runMine(args: MineArgs, io: CliIo): Promise<number> {
     const table = await mine(scenario, model, settings, progress);
     progress.stop();
     const out = resolve(io.cwd, args.out ?? join('runs', `${scenario.name}-${timestamp(new Date())}`));
-    const files = writeRunFolder(out, table);
+    const extra = [];
+    if (args.report) {
+      progress.onStage('report');
+      extra.push({ name: 'report.html', data: await buildReportHtml(toRulesJson(table), model.evaluate, { title: scenario.title }) });
+    }
+    const files = writeRunFolder(out, table, extra);
     const shown = files.map((f) => relative(io.cwd, f) || f);
     if (args.json) io.stdout(JSON.stringify({ runFolder: out, files, ...toRulesJson(table) }) + '\n');
     else if (!args.quiet) io.stdout(summaryText(table, { files: shown }));
