@@ -3,7 +3,7 @@
  *
  * One round, in a few sequential passes over the samples (no sorting, no per-sample tables):
  * (1) cut the normalised box [0, 1]^d into a grid of about CELL_TARGET_SAMPLES / 2^round
- * samples per cell (finer every round, as samples crowd near the boundaries), shifted by a
+ * (at least MIN_CELL_TARGET_SAMPLES) samples per cell (finer every round, as samples crowd near the boundaries), shifted by a
  * seeded random offset so that no boundary sits on a cell face in every round, and note in a
  * bit mask which advisories each cell holds; (2) a sample is a seed when its cell holds more than
  * one advisory (a boundary passes through it) and its margin is at most the median margin of
@@ -38,6 +38,11 @@ export interface LabelledSamples {
 
 /** Samples per grid cell aimed for in round 0: enough that a cell can hold two advisories. */
 export const CELL_TARGET_SAMPLES = 8;
+/**
+ * Finest grid: about two samples per cell. Finer grids would mostly hold single samples (no
+ * boundary to see) while their tables outgrow the caches.
+ */
+export const MIN_CELL_TARGET_SAMPLES = 2;
 /** A margin below this share of the median margin marks a near-tie (score units cancel out). */
 export const SMALL_MARGIN_FRACTION = 0.05;
 /** Half-width of a refinement box in round 0, in grid cells of that round. */
@@ -89,9 +94,13 @@ export function refineInPlace(box: Box, samples: LabelledSamples, count: number,
     out.set(uniformInBox(box, count, rng), row * d);
     return;
   }
-  const grid = gridForRound(box, n, CELL_TARGET_SAMPLES / 2 ** round, rng);
-  // pass 1: which advisories each cell holds (advisory mod 32 as a bit: a handful in practice)
-  const held = new Int32Array(grid.cells);
+  const grid = gridForRound(box, n, Math.max(MIN_CELL_TARGET_SAMPLES, CELL_TARGET_SAMPLES / 2 ** round), rng);
+  // pass 1: which advisories each cell holds, one bit each; a byte per cell when there are at
+  // most 8 advisories (a small table stays in cache), else a word (advisory mod 32: two
+  // advisories 32 apart would share a bit and hide a boundary, beyond any scenario in sight)
+  let maxAdvisory = 0;
+  for (let i = 0; i < n; i++) if (advisory[i]! > maxAdvisory) maxAdvisory = advisory[i]!;
+  const held = maxAdvisory < 8 ? new Uint8Array(grid.cells) : new Int32Array(grid.cells);
   for (let i = 0; i < n; i++) held[cellIndex(x, i, d, grid)]! |= 1 << (advisory[i]! & 31);
   // pass 2: samples in mixed cells; then the median of their margins from an even subsample
   const flag = new Uint8Array(n);
