@@ -5,6 +5,7 @@ import { EXIT, exitCodeFor } from './exit-codes.js';
 import { processIo, type CliIo } from './io.js';
 import { mineBuilder, runMine } from './commands/mine.js';
 import { reportBuilder, runReport } from './commands/report.js';
+import { proveBuilder, runProve } from './commands/prove.js';
 import { exportBuilder, runExport } from './commands/export.js';
 
 class ParseFailure extends ToolError {
@@ -27,10 +28,13 @@ export async function main(argv: readonly string[], io: CliIo = processIo()): Pr
     .command('mine <scenario>', 'sample the network, learn a tree, write checked rules to a run folder', mineBuilder, async (a) => {
       code = await runMine(a as never, io);
     })
+    .command('prove <run>', 're-prove the rules of a run folder by bound propagation and rewrite its files', proveBuilder, async (a) => {
+      code = await runProve(a as never, io);
+    })
     .command('report <run>', 'write report.html of a run folder: rules, evidence and slice plots of the network', reportBuilder, async (a) => { code = await runReport(a as never, io); })
     .command('export <run>', 'export a run as csv, md, json, smtlib or a verifiable bundle', exportBuilder, async (a) => { code = await runExport(a as never, io); })
     .example('$0 mine scenarios/survey-boat/scenario.json --out runs/demo', 'mine the demo scenario')
-    .demandCommand(1, 'name a command: mine, report or export')
+    .demandCommand(1, 'name a command: mine, prove, report or export')
     .strict()
     .recommendCommands()
     .version(toolVersion().version)

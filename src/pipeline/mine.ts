@@ -4,8 +4,10 @@ import { learnTree, pruneSequence } from '../learn/index.js';
 import { mergeRules, roundThresholds, treeToRules } from '../rules/index.js';
 import { checkRules, measureFidelity } from '../check/index.js';
 import { toolVersion } from '../version.js';
-import { proveTable } from './prove-table.js';
-import { readNetworkOf } from './read-network.js';
+import { settleTable } from './settle-table.js';
+import type { MineHooks } from './mine-hooks.js';
+
+export type { MineHooks } from './mine-hooks.js';
 
 export interface MineSettings {
   readonly seed: number;
@@ -30,12 +32,6 @@ export interface MineSettings {
   readonly proveSeconds: number;
 }
 
-export interface MineHooks {
-  readonly onStage?: (stage: string) => void;
-  readonly onProgress?: (stage: string, done: number, total: number) => void;
-  /** Clock in milliseconds for proof budgets; default performance.now. */
-  readonly now?: () => number;
-}
 
 /** Rules of a tree after merging same-advisory neighbours. */
 function rulesOf(tree: Tree, scenario: Scenario): Rule[] {
@@ -91,18 +87,6 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
     decision: scenario.decision,
     onProgress: (done, total) => hooks.onProgress?.('checking', done, total),
   });
-  let final = checked;
-  const notes: string[] = [];
-  if (settings.prove) {
-    hooks.onStage?.('proving');
-    const proved = await proveTable(checked, readNetworkOf(model), scenario, model, {
-      maxBoxes: settings.proveBoxes,
-      maxSeconds: settings.proveSeconds,
-      now: hooks.now ?? (() => performance.now()),
-    }, hooks);
-    final = proved.rules;
-    if (proved.unsupported) notes.push(proved.unsupported);
-  }
   hooks.onStage?.('fidelity');
   const fidelity = await measureFidelity(rules, scenario.inputs, model.evaluate, {
     seed: settings.seed,
@@ -111,7 +95,7 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
     advisories: k,
   });
   const { tool, version } = toolVersion();
-  return {
+  const table: RuleTable = {
     manifest: {
       tool,
       toolVersion: version,
@@ -131,10 +115,10 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
     inputs: scenario.inputs,
     advisories: scenario.advisories,
     decision: scenario.decision,
-    rules: final,
+    rules: checked,
     fidelity,
-    ...(notes.length > 0 ? { notes } : {}),
   };
+  return settings.prove ? settleTable(table, scenario, model, settings, hooks) : table;
 }
 
 function countLeaves(tree: Tree): number {
