@@ -1,5 +1,6 @@
 import { ToolError } from '../errors.js';
 import type { Box } from './check-box.js';
+import { gridCellsPerAxis } from './grid.js';
 import type { Rng } from './rng.js';
 
 /** Largest cell table allowed: 2^24 words (64 MB) would already be far more cells than samples. */
@@ -20,7 +21,7 @@ export interface RoundGrid {
 }
 
 /**
- * A grid of g cells per axis over the normalised box, with g ≈ (n / perCell)^(1/d) (at least 1,
+ * A grid of g cells per axis over the normalised box, with g = ⌊(n / perCell)^(1/d)⌋ (at least 1,
  * and (g + 1)^d ≤ MAX_CELLS), shifted by a seeded offset of up to one cell on every axis so that
  * successive rounds do not share cell faces. Cell indices are the per-axis indices (0..g) in
  * base g + 1.
@@ -33,7 +34,8 @@ export interface RoundGrid {
 export function gridForRound(box: Box, n: number, perCell: number, rng: Rng): RoundGrid {
   const d = box.length;
   if (2 ** d > MAX_CELLS) throw new ToolError('SAMPLING_DIMENSION', `refine: ${d} inputs are too many for a cell table`);
-  let g = Math.max(1, Math.floor((n / perCell) ** (1 / d)));
+  // the largest g with g^d ≤ n / perCell (exact at perfect powers, unlike a float root)
+  let g = Math.max(1, gridCellsPerAxis(Math.floor(n / perCell), d));
   while (g > 1 && (g + 1) ** d > MAX_CELLS) g--;
   const lo = new Float64Array(d);
   const width = new Float64Array(d);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { grid, gridCellsPerAxis } from '../../src/sampling/grid.js';
+import { grid, gridCellsPerAxis, gridInPlace } from '../../src/sampling/grid.js';
 import { createRng } from '../../src/sampling/rng.js';
 
 describe('gridCellsPerAxis', () => {
@@ -32,6 +32,13 @@ describe('grid', () => {
       seen[cell]!++;
     }
     expect(seen.every((c) => c === 1)).toBe(true);
+  });
+
+  it('writes the same points in place from a given row and says how many', () => {
+    const out = new Float64Array(2 * 30);
+    expect(gridInPlace([[0, 1], [5, 6]], 20, createRng(3), out, 5)).toBe(16);
+    expect(Array.from(out.subarray(10, 42))).toEqual(Array.from(grid([[0, 1], [5, 6]], 20, createRng(3))));
+    expect(() => gridInPlace([[0, 1], [5, 6]], 20, createRng(3), out, 15)).toThrow('expected room for 16 rows from row 15, found 30 rows');
   });
 
   it('jitters: two seeds give different points in the same cells', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { sobol, SOBOL_MAX_DIMENSION } from '../../src/sampling/sobol.js';
+import { sobol, sobolInPlace, SOBOL_MAX_DIMENSION } from '../../src/sampling/sobol.js';
 import { createRng } from '../../src/sampling/rng.js';
 
 /*
@@ -86,6 +86,14 @@ describe('sobol', () => {
     expect(Array.from(a)).toEqual(Array.from(b));
     expect(Array.from(a)).not.toEqual(Array.from(c));
     expect(a.every((v) => v >= 0 && v < 1)).toBe(true);
+  });
+
+  it('writes the same points in place from a given row', () => {
+    const out = new Float64Array(3 * 20).fill(-1);
+    sobolInPlace(16, 3, createRng(5), out, 4);
+    expect(Array.from(out.subarray(0, 12))).toEqual(new Array<number>(12).fill(-1));
+    expect(Array.from(out.subarray(12))).toEqual(Array.from(sobol(16, 3, createRng(5))));
+    expect(() => sobolInPlace(17, 3, undefined, out, 4)).toThrow('expected room for 17 rows from row 4, found 20 rows');
   });
 
   it('refuses dimensions beyond the table', () => {
