@@ -2,16 +2,16 @@
  * Adaptive refinement: new samples near the decision boundaries found so far.
  *
  * One round, in a few sequential passes over the samples (no sorting, no per-sample tables):
- * (1) cut the normalised box [0, 1]^d into a grid of about CELL_TARGET_SAMPLES / 2^round
- * (at least MIN_CELL_TARGET_SAMPLES) samples per cell (finer every round, as samples crowd near the boundaries), shifted by a
- * seeded random offset so that no boundary sits on a cell face in every round, and note in a
- * bit mask which advisories each cell holds; (2) a sample is a seed when its cell holds more than
- * one advisory (a boundary passes through it) and its margin is at most the median margin of
- * such samples (the half nearer the boundary in score units), or when its margin is below
- * SMALL_MARGIN_FRACTION of the median margin of all samples (a near-tie anywhere); (3) the new
- * points are spread evenly over the seeds (a seeded phase decides who gets the extra one), each
- * drawn uniformly in a box around its seed of half-width HALF_WIDTH_CELLS cells, shrunk by
- * SHRINK_PER_ROUND every round and clipped to the domain.
+ * (1) cut the normalised box [0, 1]^d into a grid of about CELL_TARGET_SAMPLES / 2^round (at
+ * least MIN_CELL_TARGET_SAMPLES) samples per cell, finer every round as samples crowd near the
+ * boundaries, shifted by a seeded random offset so that no boundary sits on a cell face in every
+ * round, and note in a bit mask which advisories each cell holds; (2) a sample is a seed when its
+ * cell holds more than one advisory (a boundary passes through it) and its margin is at most the
+ * median margin of such samples (the half nearer the boundary in score units), or when its margin
+ * is below SMALL_MARGIN_FRACTION of the median margin of all samples (a near-tie anywhere);
+ * (3) the new points are spread evenly over the seeds (a seeded phase decides who gets the extra
+ * one), each drawn uniformly in a box around its seed of half-width HALF_WIDTH_CELLS cells,
+ * shrunk by SHRINK_PER_ROUND every round and clipped to the domain.
  *
  * The method is adaptive (boundary-seeking) sampling in the spirit of active learning by
  * disagreement (B. Settles, "Active learning literature survey", Univ. Wisconsin–Madison CS
@@ -19,7 +19,7 @@
  * passes matter on this kind of machine: random access into arrays of tens of MB measured
  * 5–10× slower than streaming (docs/sampling.md).
  *
- * Cost: O(n·d) per round plus a table of (g + 1)^d ≤ ~n/2^round words, and O(count·d).
+ * Cost: O(n·d) per round, a cell table of (g + 1)^d bytes (about n/2 to 2n), and O(count·d).
  */
 import { ToolError } from '../errors.js';
 import { checkBox, checkCount, checkRoom, type Box } from './check-box.js';
