@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import type { Argv } from 'yargs';
 
 /** Options shared by every command. */
@@ -13,5 +14,6 @@ export function samplingOptions<T>(y: Argv<T>) {
   return y
     .option('seed', { type: 'number', default: 1, describe: 'seed of every random choice: the same seed gives the same rules' })
     .option('confidence', { type: 'number', default: 0.95, describe: 'confidence of the exact bounds and intervals' })
+    .option('jobs', { type: 'number', default: availableParallelism(), describe: 'worker threads for proving (default: the available cores)' })
     .option('threads', { type: 'number', default: 1, describe: 'onnxruntime intra-op threads' });
 }

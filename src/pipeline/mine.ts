@@ -30,6 +30,8 @@ export interface MineSettings {
   /** Proof budget per rule: pieces bounded, and seconds as a safety net. */
   readonly proveBoxes: number;
   readonly proveSeconds: number;
+  /** Worker threads for proving (1: in this thread). */
+  readonly jobs: number;
 }
 
 
@@ -104,7 +106,8 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
       scenario: { path: scenario.scenarioPath, sha256: scenario.scenarioSha256, name: scenario.name },
       model: { path: model.path, sha256: model.sha256 },
       seed: settings.seed,
-      settings: { ...settings },
+      // jobs changes the speed, never the result, so it is left out of the manifest
+      settings: withoutJobs(settings),
       counts: {
         samples: samples.n,
         treeLeavesFull: countLeaves(full),
@@ -119,6 +122,11 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
     fidelity,
   };
   return settings.prove ? settleTable(table, scenario, model, settings, hooks) : table;
+}
+
+function withoutJobs(s: MineSettings): Record<string, number | boolean> {
+  const { jobs: _jobs, ...rest } = s;
+  return rest;
 }
 
 function countLeaves(tree: Tree): number {

@@ -1,6 +1,8 @@
 import type { CheckedRule, Model, Scenario } from '../types.js';
 import type { ReadNetworkResult } from '../prove/index.js';
-import { proveRule, type ProveBudget } from './prove-rule.js';
+import type { ProveBudget } from './prove-rule.js';
+import { settleRule } from './settle-rule.js';
+import { proveInWorkers } from './prove-pool.js';
 
 export interface ProveTableHooks {
   readonly onProgress?: (stage: string, done: number, total: number) => void;
@@ -13,15 +15,16 @@ export interface ProveTableResult {
 }
 
 /**
- * Proves every rule of a checked table. A graph the prover cannot read leaves every rule at
- * its sampled status, with the operator and node that stopped it.
+ * Proves every rule of a checked table, on `jobs` worker threads (in this thread when jobs is
+ * 1). A graph the prover cannot read leaves every rule at its sampled status, with the operator
+ * and node that stopped it. Each rule is followed by any sub-rules its settling produced.
  */
 export async function proveTable(
   rules: readonly CheckedRule[],
   network: ReadNetworkResult,
   scenario: Scenario,
   model: Model,
-  budget: ProveBudget,
+  budget: ProveBudget & { readonly jobs: number },
   hooks: ProveTableHooks = {},
 ): Promise<ProveTableResult> {
   if (!network.supported) {
@@ -30,11 +33,22 @@ export async function proveTable(
       unsupported: `operator ${network.operator} (node "${network.node}") is not supported by the prover: ${network.reason}; rules keep their sampled status`,
     };
   }
-  const out: CheckedRule[] = [];
-  for (let i = 0; i < rules.length; i++) {
-    const checked = rules[i]!;
-    out.push({ rule: checked.rule, evidence: await proveRule(network.network, checked, scenario, model, budget) });
-    hooks.onProgress?.('proving', i + 1, rules.length);
+  const progress = (done: number): void => hooks.onProgress?.('proving', done, rules.length);
+  let settled: CheckedRule[][];
+  if (budget.jobs <= 1 || rules.length <= 1) {
+    settled = [];
+    for (const checked of rules) {
+      settled.push(await settleRule(network.network, checked, scenario, model, budget));
+      progress(settled.length);
+    }
+  } else {
+    settled = await proveInWorkers(
+      rules,
+      scenario,
+      { modelPath: model.path, modelSha256: model.sha256, maxBoxes: budget.maxBoxes, maxSeconds: budget.maxSeconds },
+      budget.jobs,
+      progress,
+    );
   }
-  return { rules: out };
+  return { rules: settled.flat() };
 }

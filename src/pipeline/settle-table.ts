@@ -7,6 +7,8 @@ export interface ProveSettings {
   /** Proof budget per rule: pieces bounded, and seconds as a safety net. */
   readonly proveBoxes: number;
   readonly proveSeconds: number;
+  /** Worker threads for proving (1: in this thread). */
+  readonly jobs: number;
 }
 
 /**
@@ -20,6 +22,7 @@ export async function settleTable(table: RuleTable, scenario: Scenario, model: M
     maxBoxes: settings.proveBoxes,
     maxSeconds: settings.proveSeconds,
     now: hooks.now ?? (() => performance.now()),
+    jobs: settings.jobs,
   }, hooks);
   const notes = [...(table.notes ?? []).filter((n) => !n.includes('not supported by the prover')), ...(proved.unsupported ? [proved.unsupported] : [])];
   return {

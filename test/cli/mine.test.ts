@@ -50,6 +50,17 @@ describe('specula mine', () => {
     expect(read('a')).toBe(read('b'));
   });
 
+  it('gives identical rules.json with one proof worker and with two', async () => {
+    const { dir, scenarioPath } = writeBoxScenario(boxNetwork2d());
+    const io = capture(dir);
+    expect(await main(['mine', scenarioPath, '--out', 'j1', '--jobs', '1', ...SMALL], io)).toBe(0);
+    expect(await main(['mine', scenarioPath, '--out', 'j2', '--jobs', '2', ...SMALL], io)).toBe(0);
+    expect(io.err()).toBe('');
+    const read = (f: string) => readFileSync(join(dir, f, 'rules.json'), 'utf8').replace(/"date": "[^"]*"/, '').replace(/"seconds": [\d.e+-]+/g, '');
+    expect(read('j1')).toBe(read('j2'));
+    expect(read('j1')).toContain('"proof"');
+  });
+
   it('refuses a bad scenario with exit 2, a one-line error, and leaves earlier outputs untouched', async () => {
     const { dir, scenarioPath } = writeBoxScenario(boxNetwork2d());
     const io = capture(dir);

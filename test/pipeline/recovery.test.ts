@@ -21,6 +21,7 @@ const SETTINGS = {
   prove: false,
   proveBoxes: 1,
   proveSeconds: 1,
+  jobs: 1,
 };
 
 /**

@@ -76,6 +76,7 @@ export async function runMine(args: MineArgs, io: CliIo): Promise<number> {
     prove: args.prove,
     proveBoxes: positiveInt('prove-boxes', args['prove-boxes']),
     proveSeconds: positiveNumber('prove-seconds', args['prove-seconds']),
+    jobs: positiveInt('jobs', args.jobs),
   };
   const scenario = loadScenario(resolve(io.cwd, String(args.scenario)));
   const modelOptions = { threads: positiveInt('threads', args.threads), ...(args.model ? { modelPath: resolve(io.cwd, args.model) } : {}) };

@@ -1,5 +1,6 @@
 import { join, relative, resolve } from 'node:path';
 import { existsSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import type { Argv } from 'yargs';
 import { UsageError } from '../../errors.js';
 import { readRulesJson, fromRulesJson } from '../../report/export/index.js';
@@ -20,6 +21,7 @@ export function proveBuilder<T>(y: Argv<T>) {
     .option('prove-boxes', { type: 'number', default: MINE_DEFAULTS.proveBoxes, describe: 'proof budget per rule: pieces of the box bounded' })
     .option('prove-seconds', { type: 'number', default: MINE_DEFAULTS.proveSeconds, describe: 'proof budget per rule: seconds (safety net)' })
     .option('threads', { type: 'number', default: 1, describe: 'onnxruntime intra-op threads' })
+    .option('jobs', { type: 'number', default: availableParallelism(), describe: 'worker threads for proving (default: the available cores)' })
     .example('$0 prove runs/demo', 're-prove the rules of runs/demo and rewrite its files')
     .example('$0 prove runs/demo --prove-boxes 100000 --prove-seconds 60', 'give each rule a larger proof budget');
 }
@@ -31,6 +33,7 @@ type ProveArgs = {
   'prove-boxes': number;
   'prove-seconds': number;
   threads: number;
+  jobs: number;
   json: boolean;
   quiet: boolean;
 };
@@ -40,6 +43,7 @@ export async function runProve(args: ProveArgs, io: CliIo): Promise<number> {
   const boxes = args['prove-boxes'];
   const seconds = args['prove-seconds'];
   if (!Number.isInteger(boxes) || boxes < 1) throw new UsageError(`--prove-boxes: expected a positive integer, found ${boxes}`);
+  if (!Number.isInteger(args.jobs) || args.jobs < 1) throw new UsageError(`--jobs: expected a positive integer, found ${args.jobs}`);
   if (!(Number.isFinite(seconds) && seconds > 0)) throw new UsageError(`--prove-seconds: expected a positive number, found ${seconds}`);
   const runDir = resolve(io.cwd, String(args.run));
   const { doc } = readRulesJson(join(runDir, 'rules.json'));
@@ -51,7 +55,7 @@ export async function runProve(args: ProveArgs, io: CliIo): Promise<number> {
   });
   const progress = createProgress(io, args.quiet || args.json);
   try {
-    const settled = await settleTable(table, scenario, model, { proveBoxes: boxes, proveSeconds: seconds }, progress);
+    const settled = await settleTable(table, scenario, model, { proveBoxes: boxes, proveSeconds: seconds, jobs: args.jobs }, progress);
     const extra = existsSync(join(runDir, 'report.html'))
       ? [{ name: 'report.html', data: await buildReportHtml(toRulesJson(settled), model.evaluate, { title: scenario.title }) }]
       : [];
