@@ -28,6 +28,14 @@ export function summaryText(table: RuleTable, options: SummaryOptions): string {
     );
   }
   out.push('status: ' + [...byStatus.entries()].map(([s, c]) => `${c} ${s}`).join(', '));
+  if (table.coverage) {
+    out.push(
+      `proven coverage of the domain: ${pct(table.coverage.total)} (` +
+        table.advisories.map((a, j) => `${a} ${pct(table.coverage!.perAdvisory[j]!, 1)}`).join(', ') +
+        ')',
+    );
+  }
+  for (const note of table.notes ?? []) out.push(`note: ${note}`);
   const rows = [...table.rules].sort((a, b) => b.evidence.volumeFraction - a.evidence.volumeFraction || (a.rule.id < b.rule.id ? -1 : 1));
   const shown = rows.slice(0, options.maxRows ?? 15);
   const cells = shown.map(({ rule, evidence: e }) => [
@@ -37,8 +45,9 @@ export function summaryText(table: RuleTable, options: SummaryOptions): string {
     e.status,
     `${count(e.violations)}/${count(e.samples)}`,
     prob(e.violationBound),
+    e.proof ? pct(e.proof.provenFraction, 1) : '',
   ]);
-  const head = ['rule', 'advisory', 'share', 'status', 'violations', 'bound'];
+  const head = ['rule', 'advisory', 'share', 'status', 'violations', 'bound', 'proven'];
   const widths = head.map((h, c) => Math.max(h.length, ...cells.map((r) => r[c]!.length)));
   out.push('', head.map((h, c) => pad(h, widths[c]!)).join('  '));
   for (const r of cells) out.push(r.map((v, c) => pad(v, widths[c]!)).join('  '));
