@@ -11,7 +11,7 @@ export type { MarginSpec } from './margin-network.js';
 export { intervalBounds, intervalTrace } from './interval.js';
 export type { IntervalTrace } from './interval.js';
 export { linearBounds } from './linear.js';
-export type { LinearBounds } from './linear.js';
+export type { LinearBounds, LinearOptions } from './linear.js';
 export { networkBoxInPlace, toNetworkInput } from './input-box.js';
 export { proveBox, PROOF_METHOD } from './branch-and-bound.js';
 export type { Box, ProveOptions, ProveResult } from './branch-and-bound.js';

@@ -38,33 +38,75 @@ export function symbolicInput(lo: ArrayLike<number>, hi: ArrayLike<number>): Sym
   return { d, width: d, low, up: Float64Array.from(low), mass };
 }
 
+/** Per row, the columns of positive then negative weights: sign-split loops without branches. */
+interface SignSplit {
+  /** outSize + 1 offsets into `cols`; row j's positive columns, then its negative ones. */
+  readonly start: Int32Array;
+  /** Where row j's negative columns begin. */
+  readonly split: Int32Array;
+  readonly cols: Int32Array;
+  readonly absRow: Float64Array;
+}
+
+const splitCache = new WeakMap<AffineLayer, SignSplit>();
+
+function signSplit(layer: AffineLayer): SignSplit {
+  let s = splitCache.get(layer);
+  if (s) return s;
+  const { inSize, outSize, weights } = layer;
+  const start = new Int32Array(outSize + 1);
+  const split = new Int32Array(outSize);
+  const cols: number[] = [];
+  const absRow = new Float64Array(outSize);
+  for (let j = 0; j < outSize; j++) {
+    start[j] = cols.length;
+    for (let k = 0; k < inSize; k++) if (weights[j * inSize + k]! > 0) cols.push(k);
+    split[j] = cols.length;
+    for (let k = 0; k < inSize; k++) if (weights[j * inSize + k]! < 0) cols.push(k);
+    for (let k = 0; k < inSize; k++) absRow[j]! += Math.abs(weights[j * inSize + k]!);
+  }
+  start[outSize] = cols.length;
+  s = { start, split, cols: Int32Array.from(cols), absRow };
+  splitCache.set(layer, s);
+  return s;
+}
+
 /** Through ẑ' = W ŷ + b + δ, |δ| ≤ e: positive weights take like bounds, negative the opposite. */
 export function symbolicAffine(s: Symbolic, layer: AffineLayer, noise: Float64Array): Symbolic {
   const { inSize, outSize, weights, bias } = layer;
+  const { start, split, cols, absRow } = signSplit(layer);
   const w1 = s.d + 1;
   const low = new Float64Array(outSize * w1);
   const up = new Float64Array(outSize * w1);
   const mass = new Float64Array(outSize);
+  const sl = s.low;
+  const su = s.up;
   let maxMass = 0;
   for (let k = 0; k < inSize; k++) maxMass = Math.max(maxMass, s.mass[k]!);
   for (let j = 0; j < outSize; j++) {
     const o = j * w1;
-    let absRow = 0;
-    for (let k = 0; k < inSize; k++) {
-      const w = weights[j * inSize + k]!;
-      if (w === 0) continue;
-      absRow += Math.abs(w);
-      const lowSrc = w > 0 ? s.low : s.up;
-      const upSrc = w > 0 ? s.up : s.low;
+    const row = j * inSize;
+    for (let q = start[j]!; q < split[j]!; q++) {
+      const k = cols[q]!;
+      const w = weights[row + k]!;
       const src = k * w1;
       for (let t = 0; t < w1; t++) {
-        low[o + t]! += w * lowSrc[src + t]!;
-        up[o + t]! += w * upSrc[src + t]!;
+        low[o + t]! += w * sl[src + t]!;
+        up[o + t]! += w * su[src + t]!;
+      }
+    }
+    for (let q = split[j]!; q < start[j + 1]!; q++) {
+      const k = cols[q]!;
+      const w = weights[row + k]!;
+      const src = k * w1;
+      for (let t = 0; t < w1; t++) {
+        low[o + t]! += w * su[src + t]!;
+        up[o + t]! += w * sl[src + t]!;
       }
     }
     low[o + s.d]! += bias[j]! - noise[j]!;
     up[o + s.d]! += bias[j]! + noise[j]!;
-    mass[j] = absRow * maxMass + Math.abs(bias[j]!) + noise[j]!;
+    mass[j] = absRow[j]! * maxMass + Math.abs(bias[j]!) + noise[j]!;
   }
   return { d: s.d, width: outSize, low, up, mass };
 }
