@@ -30,6 +30,11 @@ export interface LinearBounds {
   readonly slack: Float64Array;
   /** Float32 overflow could not be excluded: every lower bound is −Infinity. */
   readonly overflow: boolean;
+  /**
+   * Per layer index of an activation: the bounds [lower, upper] used for its input (interval
+   * bounds intersected with the tighter ones, so never looser than interval propagation).
+   */
+  readonly inner: ReadonlyArray<readonly [Float64Array, Float64Array] | undefined>;
 }
 
 /** Relative allowance for float64 rounding in the summed constant and corner terms (≤ 2^22 additions). */
@@ -141,7 +146,7 @@ export function linearBounds(net: Network, lo: ArrayLike<number>, hi: ArrayLike<
   const k = net.outputSize;
   const d = net.inputSize;
   if (trace.overflow) {
-    return { lower: new Float64Array(k).fill(-Infinity), coefficients: new Float64Array(k * d), minimiser: new Float64Array(k * d), slack: new Float64Array(k), overflow: true };
+    return { lower: new Float64Array(k).fill(-Infinity), coefficients: new Float64Array(k * d), minimiser: new Float64Array(k * d), slack: new Float64Array(k), overflow: true, inner: [] };
   }
   const mode = options.intermediate ?? 'backward';
   const slopes = options.slopes ?? 'best';
@@ -169,7 +174,7 @@ export function linearBounds(net: Network, lo: ArrayLike<number>, hi: ArrayLike<
   const eye = new Float64Array(k * k);
   for (let j = 0; j < k; j++) eye[j * k + j] = 1;
   const pass = backSubstitute(net, net.layers.length - 1, eye, k, relax, trace, lo, hi);
-  if (slopes !== 'best') return { ...pass, overflow: false };
+  if (slopes !== 'best') return { ...pass, overflow: false, inner: inputBounds };
   const zero = relax.map((r, p) => (r && net.layers[p]!.kind === 'relu' ? relaxActivation('relu', inputBounds[p]![0], inputBounds[p]![1], 'zero') : r));
   const other = backSubstitute(net, net.layers.length - 1, eye, k, zero, trace, lo, hi);
   for (let j = 0; j < k; j++) {
@@ -180,7 +185,7 @@ export function linearBounds(net: Network, lo: ArrayLike<number>, hi: ArrayLike<
       pass.minimiser.set(other.minimiser.subarray(j * d, j * d + d), j * d);
     }
   }
-  return { ...pass, overflow: false };
+  return { ...pass, overflow: false, inner: inputBounds };
 }
 
 /** Tightens bounds [l, u] of layer `q`'s output by back-substitution, in place. */
