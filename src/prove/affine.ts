@@ -4,11 +4,10 @@ import { NOISE_FLOOR } from './float-error.js';
 /**
  * Builds and fuses affine layers together with their float32 error bounds.
  *
- * An affine step maps x̂ to ŷ with ŷ = W x̂ + b + δ, |δ_j| ≤ s_j·M + c_j, M = max_k |x̂_k|.
- * Composing (W1, b1, s1, c1) then (W2, b2, s2, c2):
- *   ŷ2 = W2 W1 x̂ + (W2 b1 + b2) + W2 δ1 + δ2, and max_k |ŷ1_k| ≤ A·M + B with
- *   A = max_k (Σ_i |W1_ki| + s1_k), B = max_k (|b1_k| + c1_k), so
- *   s_j = Σ_k |W2_jk| s1_k + s2_j A,   c_j = Σ_k |W2_jk| c1_k + s2_j B + c2_j,
+ * An affine step maps x̂ to ŷ with ŷ = W x̂ + b + δ, |δ| ≤ E|x̂| + c (entrywise, E ≥ 0).
+ * Composing (W1, b1, E1, c1) then (W2, b2, E2, c2):
+ *   ŷ2 = W2 W1 x̂ + (W2 b1 + b2) + W2 δ1 + δ2, and |ŷ1| ≤ (|W1| + E1)|x̂| + |b1| + c1, so
+ *   E = |W2| E1 + E2 (|W1| + E1),   c = |W2| c1 + E2 (|b1| + c1) + c2,
  * plus 2^-40 of |W2||W1| and |W2||b1| for the float64 rounding of the fused product
  * (at most n·2^-53 ≤ 2^-41 of those sums for n < 4096). This is the running error analysis of
  * Higham (Accuracy and Stability of Numerical Algorithms, SIAM, 2002, §3.1) applied per layer.
@@ -18,7 +17,8 @@ export interface AffineDraft {
   readonly outSize: number;
   readonly weights: Float64Array;
   readonly bias: Float64Array;
-  readonly errorScale: Float64Array;
+  /** outSize × inSize, E above. */
+  readonly errorWeights: Float64Array;
   readonly errorConst: Float64Array;
   readonly nodes: readonly string[];
 }
@@ -26,15 +26,16 @@ export interface AffineDraft {
 const PRODUCT_ROUNDING = 2 ** -40;
 
 /**
- * An affine step from explicit parts; the error bound is `scale[j]·M + konst[j]`.
+ * An affine step from explicit parts; the error bound is `errorWeights·|x| + konst`.
  * @param weights outSize × inSize row-major (copied)
+ * @param errorWeights outSize × inSize, non-negative (copied)
  */
 export function affineDraft(
   inSize: number,
   outSize: number,
   weights: ArrayLike<number>,
   bias: ArrayLike<number>,
-  scale: ArrayLike<number>,
+  errorWeights: ArrayLike<number>,
   konst: ArrayLike<number>,
   nodes: readonly string[],
 ): AffineDraft {
@@ -43,13 +44,13 @@ export function affineDraft(
     outSize,
     weights: Float64Array.from(weights),
     bias: Float64Array.from(bias),
-    errorScale: Float64Array.from(scale),
+    errorWeights: Float64Array.from(errorWeights),
     errorConst: Float64Array.from(konst),
     nodes,
   };
 }
 
-/** A diagonal step y_j = d_j x_j + b_j with the given error bound per output. */
+/** A diagonal step y_j = d_j x_j + b_j with error bound scale_j·|x_j| + konst_j. */
 export function diagonalDraft(
   d: ArrayLike<number>,
   b: ArrayLike<number>,
@@ -59,8 +60,12 @@ export function diagonalDraft(
 ): AffineDraft {
   const n = d.length;
   const w = new Float64Array(n * n);
-  for (let j = 0; j < n; j++) w[j * n + j] = d[j]!;
-  return affineDraft(n, n, w, b, scale, konst, nodes);
+  const e = new Float64Array(n * n);
+  for (let j = 0; j < n; j++) {
+    w[j * n + j] = d[j]!;
+    e[j * n + j] = scale[j]!;
+  }
+  return affineDraft(n, n, w, b, e, konst, nodes);
 }
 
 /** `second ∘ first`, with the composed error bound derived above. */
@@ -68,54 +73,52 @@ export function composeAffine(first: AffineDraft, second: AffineDraft): AffineDr
   const n0 = first.inSize;
   const n1 = first.outSize;
   const n2 = second.outSize;
-  let a = 0;
-  let bmax = 0;
-  const rowAbs1 = new Float64Array(n1);
-  for (let k = 0; k < n1; k++) {
-    let r = 0;
-    for (let i = 0; i < n0; i++) r += Math.abs(first.weights[k * n0 + i]!);
-    rowAbs1[k] = r;
-    a = Math.max(a, r + first.errorScale[k]!);
-    bmax = Math.max(bmax, Math.abs(first.bias[k]!) + first.errorConst[k]!);
-  }
+  // |W1| + E1 and |b1| + c1: bounds on |ŷ1| per unit of |x̂| and in total
+  const reach = new Float64Array(n1 * n0);
+  for (let t = 0; t < n1 * n0; t++) reach[t] = Math.abs(first.weights[t]!) + first.errorWeights[t]!;
   const w = new Float64Array(n2 * n0);
   const b = new Float64Array(n2);
-  const s = new Float64Array(n2);
+  const e = new Float64Array(n2 * n0);
   const c = new Float64Array(n2);
   for (let j = 0; j < n2; j++) {
     let bj = second.bias[j]!;
-    let sj = 0;
-    let cj = 0;
-    let roundS = 0;
-    let roundC = 0;
+    let cj = second.errorConst[j]!;
     for (let k = 0; k < n1; k++) {
       const w2 = second.weights[j * n1 + k]!;
-      if (w2 === 0) continue;
+      const e2 = second.errorWeights[j * n1 + k]!;
       const aw = Math.abs(w2);
-      for (let i = 0; i < n0; i++) w[j * n0 + i]! += w2 * first.weights[k * n0 + i]!;
-      bj += w2 * first.bias[k]!;
-      sj += aw * first.errorScale[k]!;
-      cj += aw * first.errorConst[k]!;
-      roundS += aw * rowAbs1[k]!;
-      roundC += aw * Math.abs(first.bias[k]!);
+      if (w2 !== 0) {
+        bj += w2 * first.bias[k]!;
+        cj += aw * first.errorConst[k]! + PRODUCT_ROUNDING * aw * Math.abs(first.bias[k]!);
+      }
+      cj += e2 * (Math.abs(first.bias[k]!) + first.errorConst[k]!);
+      if (w2 === 0 && e2 === 0) continue;
+      for (let i = 0; i < n0; i++) {
+        const w1 = first.weights[k * n0 + i]!;
+        w[j * n0 + i]! += w2 * w1;
+        e[j * n0 + i]! += aw * (first.errorWeights[k * n0 + i]! + PRODUCT_ROUNDING * Math.abs(w1)) + e2 * reach[k * n0 + i]!;
+      }
     }
     b[j] = bj;
-    s[j] = sj + second.errorScale[j]! * a + PRODUCT_ROUNDING * roundS;
-    c[j] = cj + second.errorScale[j]! * bmax + second.errorConst[j]! + PRODUCT_ROUNDING * roundC;
+    c[j] = cj;
   }
-  return { inSize: n0, outSize: n2, weights: w, bias: b, errorScale: s, errorConst: c, nodes: [...first.nodes, ...second.nodes] };
+  return { inSize: n0, outSize: n2, weights: w, bias: b, errorWeights: e, errorConst: c, nodes: [...first.nodes, ...second.nodes] };
 }
 
 /** Freezes a draft into a layer, raising its error bound to the NOISE_FLOOR where lower. */
 export function finishAffine(draft: AffineDraft): AffineLayer {
   const { inSize, outSize, weights, bias } = draft;
-  const s = Float64Array.from(draft.errorScale);
+  const e = Float64Array.from(draft.errorWeights);
+  const s = new Float64Array(outSize);
   const c = Float64Array.from(draft.errorConst);
   for (let j = 0; j < outSize; j++) {
     let r = 0;
-    for (let i = 0; i < inSize; i++) r += Math.abs(weights[j * inSize + i]!);
-    s[j] = Math.max(s[j]!, NOISE_FLOOR * r);
+    for (let i = 0; i < inSize; i++) {
+      e[j * inSize + i] = Math.max(e[j * inSize + i]!, NOISE_FLOOR * Math.abs(weights[j * inSize + i]!));
+      r += e[j * inSize + i]!;
+    }
+    s[j] = r;
     c[j] = Math.max(c[j]!, NOISE_FLOOR * Math.abs(bias[j]!));
   }
-  return { kind: 'affine', inSize, outSize, weights, bias, errorScale: s, errorConst: c, nodes: draft.nodes };
+  return { kind: 'affine', inSize, outSize, weights, bias, errorWeights: e, errorScale: s, errorConst: c, nodes: draft.nodes };
 }

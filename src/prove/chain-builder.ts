@@ -50,11 +50,13 @@ export class ChainBuilder {
       merge[j * 2 * n + n + j] = -alpha;
     }
     const zeros2n = new Float64Array(2 * n);
-    this.affine(affineDraft(n, 2 * n, split, zeros2n, zeros2n, zeros2n, [node]));
+    this.affine(affineDraft(n, 2 * n, split, zeros2n, new Float64Array(2 * n * n), zeros2n, [node]));
     this.activation('relu', node);
-    const scale = new Float64Array(n).fill(gamma(1) * Math.abs(alpha));
+    // the runtime's α·z errs by u|α||z|: charged to the relu(−z) input of each output
+    const err = new Float64Array(n * 2 * n);
+    for (let j = 0; j < n; j++) err[j * 2 * n + n + j] = gamma(1) * Math.abs(alpha);
     const konst = new Float64Array(n).fill(FLOAT32_UNDERFLOW);
-    return this.affine(affineDraft(2 * n, n, merge, new Float64Array(n), scale, konst, [node]));
+    return this.affine(affineDraft(2 * n, n, merge, new Float64Array(n), err, konst, [node]));
   }
 
   /**
@@ -83,11 +85,9 @@ export class ChainBuilder {
         merge[j * m * n + q * n + j] = q === 0 ? p.sign : -1;
       }
     });
-    const zs = new Float64Array(m * n);
-    const zn = new Float64Array(n);
-    this.affine(affineDraft(n, m * n, split, splitBias, zs, zs, [node]));
+    this.affine(affineDraft(n, m * n, split, splitBias, new Float64Array(m * n * n), new Float64Array(m * n), [node]));
     this.activation('relu', node);
-    return this.affine(affineDraft(m * n, n, merge, mergeBias, zn, zn, [node]));
+    return this.affine(affineDraft(m * n, n, merge, mergeBias, new Float64Array(n * m * n), new Float64Array(n), [node]));
   }
 
   private flush(): void {

@@ -94,21 +94,24 @@ export function affineStepBlocks(layer: AffineLayer, aw: Float64Array, cc: Float
   }
 }
 
-/** The same step for one box stored plainly (used for per-layer traces); returns the error terms. */
+/**
+ * The same step for one box stored plainly (used for per-layer traces), with the per-input
+ * error bound e_j = (Σ_k E_jk (|c_k| + r_k) + c_j)·NOISE_INFLATION written to `noise`.
+ */
 export function affineStepSingle(layer: AffineLayer, aw: Float64Array, cc: Float64Array, rr: Float64Array, nc: Float64Array, nr: Float64Array, noise: Float64Array): boolean {
-  const { inSize, outSize, weights, bias, errorScale, errorConst } = layer;
-  let m = 0;
-  for (let k = 0; k < inSize; k++) m = Math.max(m, Math.abs(cc[k]!) + rr[k]!);
+  const { inSize, outSize, weights, bias, errorWeights, errorConst } = layer;
   let overflow = false;
   for (let j = 0; j < outSize; j++) {
     const row = j * inSize;
     let c = bias[j]!;
     let r = 0;
+    let err = errorConst[j]!;
     for (let k = 0; k < inSize; k++) {
       c += weights[row + k]! * cc[k]!;
       r += aw[row + k]! * rr[k]!;
+      err += errorWeights[row + k]! * (Math.abs(cc[k]!) + rr[k]!);
     }
-    const e = (errorScale[j]! * m + errorConst[j]!) * NOISE_INFLATION;
+    const e = err * NOISE_INFLATION;
     noise[j] = e;
     nc[j] = c;
     nr[j] = r + e;

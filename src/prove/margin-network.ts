@@ -41,19 +41,23 @@ export function marginNetwork(net: Network, spec: MarginSpec): Network {
   if (last && last.kind === 'affine') {
     const n = last.inSize;
     const w = new Float64Array(rows * n);
+    const e = new Float64Array(rows * n);
     const b = new Float64Array(rows);
     const s = new Float64Array(rows);
     const c = new Float64Array(rows);
     spec.allowed.forEach((a, g) => {
       spec.rivals.forEach((j, q) => {
         const r = g * nr + q;
-        for (let i = 0; i < n; i++) w[r * n + i] = spec.sign * (last.weights[a * n + i]! - last.weights[j * n + i]!);
+        for (let i = 0; i < n; i++) {
+          w[r * n + i] = spec.sign * (last.weights[a * n + i]! - last.weights[j * n + i]!);
+          e[r * n + i] = last.errorWeights[a * n + i]! + last.errorWeights[j * n + i]!;
+        }
         b[r] = spec.sign * (last.bias[a]! - last.bias[j]!);
         s[r] = last.errorScale[a]! + last.errorScale[j]!;
         c[r] = last.errorConst[a]! + last.errorConst[j]!;
       });
     });
-    const folded: AffineLayer = { kind: 'affine', inSize: n, outSize: rows, weights: w, bias: b, errorScale: s, errorConst: c, nodes: last.nodes };
+    const folded: AffineLayer = { kind: 'affine', inSize: n, outSize: rows, weights: w, bias: b, errorWeights: e, errorScale: s, errorConst: c, nodes: last.nodes };
     return { ...net, outputSize: rows, layers: [...net.layers.slice(0, -1), folded] };
   }
   const k = net.outputSize;
@@ -67,6 +71,7 @@ export function marginNetwork(net: Network, spec: MarginSpec): Network {
   const zeros = new Float64Array(rows);
   // no float32 error, but the noise floor of two unit weights keeps the float64 argument uniform
   const floor = new Float64Array(rows).fill(2 * NOISE_FLOOR);
-  const diff: AffineLayer = { kind: 'affine', inSize: k, outSize: rows, weights: w, bias: zeros, errorScale: floor, errorConst: zeros, nodes: [] };
+  const e = w.map((v) => NOISE_FLOOR * Math.abs(v));
+  const diff: AffineLayer = { kind: 'affine', inSize: k, outSize: rows, weights: w, bias: zeros, errorWeights: e, errorScale: floor, errorConst: zeros, nodes: [] };
   return { ...net, outputSize: rows, layers: [...net.layers, diff] };
 }

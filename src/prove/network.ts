@@ -7,8 +7,8 @@
 
 /**
  * `y = W x + b` in exact arithmetic. The float32 result computed by the runtime satisfies
- * `|ŷ_j − (W x̂ + b)_j| ≤ errorScale[j] · max_k |x̂_k| + errorConst[j]` for the computed input x̂
- * (see float-error.ts for the model and docs/proofs.md for the argument).
+ * `|ŷ_j − (W x̂ + b)_j| ≤ Σ_k errorWeights[j, k] · |x̂_k| + errorConst[j]` for the computed
+ * input x̂ (see float-error.ts for the model and docs/proofs.md for the argument).
  */
 export interface AffineLayer {
   readonly kind: 'affine';
@@ -17,6 +17,9 @@ export interface AffineLayer {
   /** outSize × inSize, row-major. */
   readonly weights: Float64Array;
   readonly bias: Float64Array;
+  /** outSize × inSize, non-negative. */
+  readonly errorWeights: Float64Array;
+  /** Row sums of errorWeights: the bound errorScale[j]·max_k |x̂_k| + errorConst[j] is coarser and cheaper. */
   readonly errorScale: Float64Array;
   readonly errorConst: Float64Array;
   /** Names of the ONNX nodes fused into this layer. */

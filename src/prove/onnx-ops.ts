@@ -71,15 +71,9 @@ function gemm(node: Node, ctx: OpContext, matmul: boolean): string | null {
   }
   // Σ over k products, then alpha, beta·C and the addition: k + 3 roundings at most
   const g = gamma(k + 3);
-  const scale = new Float64Array(n);
-  const konst = new Float64Array(n);
-  for (let j = 0; j < n; j++) {
-    let r = 0;
-    for (let i = 0; i < k; i++) r += Math.abs(w[j * k + i]!);
-    scale[j] = g * r;
-    konst[j] = g * Math.abs(bias[j]!) + 2 * (k + 3) * FLOAT32_UNDERFLOW;
-  }
-  return ctx.builder.affine(affineDraft(k, n, w, bias, scale, konst, [ctx.name]));
+  const errorWeights = w.map((v) => g * Math.abs(v));
+  const konst = bias.map((v) => g * Math.abs(v) + 2 * (k + 3) * FLOAT32_UNDERFLOW);
+  return ctx.builder.affine(affineDraft(k, n, w, bias, errorWeights, konst, [ctx.name]));
 }
 
 function elementwise(node: Node, ctx: OpContext, op: string): string | null {
