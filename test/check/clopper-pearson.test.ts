@@ -62,11 +62,11 @@ describe('clopperPearsonUpper and clopperPearsonInterval', () => {
     // Conover, Practical Nonparametric Statistics, 3rd ed. 1999, 5/25: 0.068 – 0.407 (3 dp, as
     // quoted in CHECK-VALUES §1 [S]); Newcombe, Stat. Med. 17:857–872, 1998, Table II "exact"
     // (4 dp; table entries from memory [M], matched by computation in CHECK-VALUES)
-    const half3dp = 5e-4;
-    const half4dp = 5e-5;
+    const HALF_3DP = 5e-4; // the published values' own rounding
+    const HALF_4DP = 5e-5;
     const c = clopperPearsonInterval(5, 25, 0.95);
-    expect(Math.abs(c.lower - 0.068)).toBeLessThanOrEqual(half3dp);
-    expect(Math.abs(c.upper - 0.407)).toBeLessThanOrEqual(half3dp);
+    expect(Math.abs(c.lower - 0.068)).toBeLessThanOrEqual(HALF_3DP);
+    expect(Math.abs(c.upper - 0.407)).toBeLessThanOrEqual(HALF_3DP);
     const cases: ReadonlyArray<readonly [number, number, number, number]> = [
       [0, 20, 0, 0.1684],
       [1, 29, 0.0009, 0.1776],
@@ -75,8 +75,8 @@ describe('clopperPearsonUpper and clopperPearsonInterval', () => {
     ];
     for (const [k, n, lo, hi] of cases) {
       const iv = clopperPearsonInterval(k, n, 0.95);
-      expect(Math.abs(iv.lower - lo)).toBeLessThanOrEqual(half4dp);
-      expect(Math.abs(iv.upper - hi)).toBeLessThanOrEqual(half4dp);
+      expect(Math.abs(iv.lower - lo)).toBeLessThanOrEqual(HALF_4DP);
+      expect(Math.abs(iv.upper - hi)).toBeLessThanOrEqual(HALF_4DP);
     }
   });
 
@@ -111,24 +111,28 @@ describe('clopperPearsonUpper and clopperPearsonInterval', () => {
     // 249(13):1743–1745, 1983: with 0 events in n trials, 3/n approximates the upper 95 % bound.
     // The exact one-sided bound 1 − 0.05^(1/n) is below −ln(0.05)/n = 2.9957/n < 3/n for every
     // n (CHECK-VALUES §1 [C]), so 3/n is always conservative; the ratio table there is printed
-    // to 4 decimals, hence the 5e-5 tolerance.
+    // to 4 decimals, hence the tolerance of half a unit in the 4th decimal.
+    const RATIO_ROUNDING = 5e-5;
     const ratios: ReadonlyArray<readonly [number, number]> = [
       [10, 1.1589], [20, 1.0783], [30, 1.0523], [50, 1.0317], [100, 1.0165], [300, 1.0064], [1000, 1.0029], [10000, 1.0016],
     ];
     for (const [n, ratio] of ratios) {
       const u = clopperPearsonUpper(0, n, 0.95);
       expect(3 / n).toBeGreaterThan(u);
-      expect(Math.abs(3 / n / u - ratio)).toBeLessThanOrEqual(5e-5);
+      expect(Math.abs(3 / n / u - ratio)).toBeLessThanOrEqual(RATIO_ROUNDING);
     }
     // Large n: the ratio tends to 3 / 2.9957 = 1.00143 with an O(1/n) excess of about 1.5/n, so
     // for n ≥ 100 it stays within 2 % (measured 1.65 % at n = 100): "≈ 3/n" in the paper's sense.
-    for (const n of [100, 1000, 1e5, 1e7]) expect(3 / n / clopperPearsonUpper(0, n, 0.95)).toBeLessThan(1.02);
+    const RULE_OF_THREE_RATIO_MAX = 1.02;
+    for (const n of [100, 1000, 1e5, 1e7]) expect(3 / n / clopperPearsonUpper(0, n, 0.95)).toBeLessThan(RULE_OF_THREE_RATIO_MAX);
     // Hanley's examples 0/14, 0/112, 0/167 [C], printed to 6 decimals
-    expect(Math.abs(clopperPearsonUpper(0, 14, 0.95) - 0.192636)).toBeLessThanOrEqual(5e-7);
-    expect(Math.abs(clopperPearsonUpper(0, 112, 0.95) - 0.026393)).toBeLessThanOrEqual(5e-7);
-    expect(Math.abs(clopperPearsonUpper(0, 167, 0.95) - 0.017779)).toBeLessThanOrEqual(5e-7);
+    const ROUNDING_6_DECIMALS = 5e-7;
+    const ROUNDING_7_DECIMALS = 5e-8;
+    expect(Math.abs(clopperPearsonUpper(0, 14, 0.95) - 0.192636)).toBeLessThanOrEqual(ROUNDING_6_DECIMALS);
+    expect(Math.abs(clopperPearsonUpper(0, 112, 0.95) - 0.026393)).toBeLessThanOrEqual(ROUNDING_6_DECIMALS);
+    expect(Math.abs(clopperPearsonUpper(0, 167, 0.95) - 0.017779)).toBeLessThanOrEqual(ROUNDING_6_DECIMALS);
     // not a two-sided 95 % bound: that one is 1 − 0.025^(1/n) ≈ 3.689/n, 0.0362167 at n = 100
-    expect(Math.abs(clopperPearsonInterval(0, 100, 0.95).upper - 0.0362167)).toBeLessThanOrEqual(5e-8);
+    expect(Math.abs(clopperPearsonInterval(0, 100, 0.95).upper - 0.0362167)).toBeLessThanOrEqual(ROUNDING_7_DECIMALS);
   });
 
   it('grow with k and shrink with n, and give the zero-failure sample sizes', () => {

@@ -36,8 +36,10 @@ describe('refine', () => {
     // seeds in cells the circle crosses), so refined points land mostly in the band (measured
     // 98 %); 70 % is far beyond what a non-adaptive sampler gets.
     const BAND = 0.03;
-    expect(nearShare(samples.x, samples.n, BAND)).toBeLessThan(0.14);
-    expect(nearShare(out, count, BAND)).toBeGreaterThan(0.7);
+    const UNIFORM_SHARE_MAX = 0.14; // 11.3 % expected, + 5 binomial sd
+    const REFINED_SHARE_MIN = 0.7;
+    expect(nearShare(samples.x, samples.n, BAND)).toBeLessThan(UNIFORM_SHARE_MAX);
+    expect(nearShare(out, count, BAND)).toBeGreaterThan(REFINED_SHARE_MIN);
   });
 
   it('shrinks its boxes over rounds', async () => {
@@ -70,9 +72,10 @@ describe('refine', () => {
     const out = refine(box, { x, advisory: new Int32Array(n), margin: new Float32Array(n).fill(1), n }, 400, 0, createRng(8));
     // uniform over the box: about a quarter of the points in each quadrant (binomial sd 8.7;
     // ±45 is more than 5 sd)
+    const QUADRANT_TOL = 45;
     let lowLeft = 0;
     for (let i = 0; i < 400; i++) if (out[2 * i]! < 0.5 && out[2 * i + 1]! < 0) lowLeft++;
-    expect(Math.abs(lowLeft - 100)).toBeLessThan(45);
+    expect(Math.abs(lowLeft - 100)).toBeLessThan(QUADRANT_TOL);
   });
 
   it('writes in place after the samples it reads, and refuses to overwrite them', async () => {
