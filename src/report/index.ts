@@ -7,3 +7,4 @@ export { rulesMdText } from './rules-md.js';
 export { summaryText } from './summary.js';
 export type { SummaryOptions } from './summary.js';
 export { writeRunFolder } from './write-run-folder.js';
+export { readRulesCsv, readCsvTable, throwCsvIssues, CSV_ISSUES_SHOWN, type CsvTable, type RulesFromCsv } from './read-rules-csv.js';

@@ -1,0 +1,152 @@
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import { join, relative, resolve } from 'node:path';
+import type { Argv } from 'yargs';
+import { UsageError } from '../../errors.js';
+import { loadScenario } from '../../scenario/index.js';
+import { loadModel } from '../../model/index.js';
+import { checkTable, counterexampleText, readRuleSource } from '../../diff/index.js';
+import { compareReference, readReferenceTable, referenceFiles, referenceSummaryText } from '../../reference/index.js';
+import { cautionsText, summaryText, toRulesJson, writeFilesAtomic, writeRunFolder } from '../../report/index.js';
+import { buildReportHtml } from '../../report/html/index.js';
+import type { RuleTable } from '../../types.js';
+import { toolVersion } from '../../version.js';
+import type { CliIo } from '../io.js';
+import { commonOptions, samplingOptions } from '../options.js';
+import { createProgress } from '../progress.js';
+import { EXIT } from '../exit-codes.js';
+import { MINE_DEFAULTS } from './mine.js';
+
+export function checkBuilder<T>(y: Argv<T>) {
+  return commonOptions(samplingOptions(y))
+    .positional('scenario', { type: 'string', describe: 'scenario.json', demandOption: true })
+    .positional('rules', { type: 'string', describe: 'rules to check: a rule file (.rules), a run\'s rules.json or rules.csv' })
+    .option('model', { type: 'string', describe: 'model file instead of the one the scenario names' })
+    .option('out', { type: 'string', describe: 'output folder (default runs/<scenario>-check-<timestamp>)' })
+    .option('check-samples', { type: 'number', default: MINE_DEFAULTS.checkSamples, describe: 'dense samples per rule' })
+    .option('prove', { type: 'boolean', default: true, describe: 'prove the rules by bound propagation (--no-prove to skip)' })
+    .option('prove-boxes', { type: 'number', default: MINE_DEFAULTS.proveBoxes, describe: 'proof budget per rule: pieces of the box bounded' })
+    .option('prove-seconds', { type: 'number', default: MINE_DEFAULTS.proveSeconds, describe: 'proof budget per rule: seconds (safety net)' })
+    .option('report', { type: 'boolean', default: true, describe: 'write report.html with slice plots (--no-report to skip)' })
+    .option('reference', { type: 'string', describe: 'reference lookup table (CSV: one column per input, one advisory column) to compare at its grid points' })
+    .option('min-agreement', { type: 'number', default: 1, describe: 'with --reference: exit 1 when the share of agreeing grid points is below this (0..1)' })
+    .example('$0 check scenarios/survey-boat/scenario.json scenarios/survey-boat/expectations.rules', 'check expert expectations on the scenario\'s model')
+    .example('$0 check scenario.json runs/accepted/rules.json --model retrained.onnx', 'check an accepted table on a retrained model')
+    .example('$0 check scenario.json --reference table.csv --min-agreement 0.99', 'compare the network with a lookup table at its grid points');
+}
+
+type CheckArgs = Awaited<ReturnType<ReturnType<typeof checkBuilder>['parseAsync']>>;
+
+function positiveInt(name: string, v: number): number {
+  if (!Number.isInteger(v) || v < 1) throw new UsageError(`--${name}: expected a positive integer, found ${v}`);
+  return v;
+}
+
+function timestamp(d: Date): string {
+  return d.toISOString().replace(/[-:]/g, '').replace(/\.\d+Z$/, 'Z');
+}
+
+function sha256Of(path: string): string {
+  return createHash('sha256').update(readFileSync(path)).digest('hex');
+}
+
+/** Per refuted rule: where the network breaks it (the summary shows the notes). */
+function findingsText(table: RuleTable): string[] {
+  const lines: string[] = [];
+  for (const { rule, evidence } of table.rules) {
+    if (evidence.status === 'refuted' && evidence.counterexample) {
+      lines.push(`${rule.id} refuted: ${counterexampleText(evidence.counterexample, table.inputs, table.advisories)}`);
+    }
+  }
+  return lines;
+}
+
+/**
+ * `specula check SCENARIO [RULES] [--reference TABLE]`: checks given rules on dense samples and
+ * proves them where the graph is supported; compares the network with a reference table at its
+ * grid points. Exit 0 when every rule holds and the agreement gate passes, 1 otherwise.
+ */
+export async function runCheck(args: CheckArgs, io: CliIo): Promise<number> {
+  if (args.rules === undefined && args.reference === undefined) {
+    throw new UsageError('name the rules to check (a rule file, rules.json or rules.csv) or a reference table with --reference');
+  }
+  const confidence = args.confidence;
+  if (!(confidence > 0 && confidence < 1)) throw new UsageError(`--confidence: expected a number between 0 and 1, found ${confidence}`);
+  const minAgreement = args['min-agreement'];
+  if (!(minAgreement >= 0 && minAgreement <= 1)) throw new UsageError(`--min-agreement: expected a number in [0, 1], found ${minAgreement}`);
+  if (!Number.isInteger(args.seed) || args.seed < 0 || args.seed > 0xffffffff) throw new UsageError(`--seed: expected an integer in [0, 4294967295], found ${args.seed}`);
+  const settings = {
+    seed: args.seed,
+    checkSamples: positiveInt('check-samples', args['check-samples']),
+    confidence,
+    prove: args.prove,
+    proveBoxes: positiveInt('prove-boxes', args['prove-boxes']),
+    proveSeconds: args['prove-seconds'],
+    jobs: positiveInt('jobs', args.jobs),
+  };
+  if (!(Number.isFinite(settings.proveSeconds) && settings.proveSeconds > 0)) throw new UsageError(`--prove-seconds: expected a positive number, found ${settings.proveSeconds}`);
+  const scenario = loadScenario(resolve(io.cwd, String(args.scenario)));
+  // Read every input file before the model is loaded, so bad input fails fast.
+  const source = args.rules === undefined ? undefined : readRuleSource(resolve(io.cwd, String(args.rules)), scenario);
+  for (const w of source?.warnings ?? []) io.stderr(`specula: warning: ${w}\n`);
+  const tablePath = args.reference === undefined ? undefined : resolve(io.cwd, args.reference);
+  const grid = tablePath === undefined ? undefined : readReferenceTable(tablePath, scenario);
+  const model = await loadModel(scenario, { threads: positiveInt('threads', args.threads), ...(args.model ? { modelPath: resolve(io.cwd, args.model) } : {}) });
+  const progress = createProgress(io, args.quiet || args.json);
+  try {
+    const table = source === undefined
+      ? undefined
+      : await checkTable(scenario, model, source.rules, settings, { command: 'check', source: source.path, notes: source.warnings }, progress);
+    if (grid) progress.onStage('comparing with the reference table');
+    const comparison = grid === undefined ? undefined : await compareReference(grid, model.evaluate, scenario.advisories.length);
+    const { tool, version } = toolVersion();
+    const refFiles = comparison === undefined || tablePath === undefined
+      ? []
+      : referenceFiles(comparison, {
+          scenario: { path: scenario.scenarioPath, sha256: scenario.scenarioSha256, name: scenario.name },
+          model: { path: model.path, sha256: model.sha256 },
+          table: { path: tablePath, sha256: sha256Of(tablePath) },
+          tool,
+          toolVersion: version,
+          date: new Date().toISOString(),
+        }, scenario.inputs, scenario.advisories);
+    const out = resolve(io.cwd, args.out ?? join('runs', `${scenario.name}-check-${timestamp(new Date())}`));
+    let files: string[];
+    if (table) {
+      const extra: Array<{ name: string; data: string }> = [...refFiles];
+      if (args.report) {
+        progress.onStage('report');
+        extra.push({ name: 'report.html', data: await buildReportHtml(toRulesJson(table), model.evaluate, { title: scenario.title }) });
+      }
+      progress.stop();
+      files = writeRunFolder(out, table, extra);
+    } else {
+      progress.stop();
+      files = refFiles.map((f) => join(out, f.name));
+      writeFilesAtomic(refFiles.map((f) => ({ path: join(out, f.name), data: f.data })));
+    }
+    const refuted = table?.rules.filter((r) => r.evidence.status === 'refuted').length ?? 0;
+    const agreement = comparison === undefined ? 1 : comparison.agree / comparison.points;
+    const code = refuted > 0 || agreement < minAgreement ? EXIT.FINDINGS : EXIT.OK;
+    if (args.json) {
+      const reference = refFiles.length > 0 ? JSON.parse(refFiles[0]!.data) : undefined;
+      io.stdout(JSON.stringify({ outFolder: out, files, exitCode: code, ...(table ? { ...toRulesJson(table), notes: table.notes ?? [] } : {}), ...(reference ? { reference } : {}) }) + '\n');
+    } else if (!args.quiet) {
+      const shown = files.map((f) => relative(io.cwd, f) || f);
+      const ref = comparison ? referenceSummaryText(comparison, scenario.inputs, scenario.advisories) : '';
+      const gate = comparison && agreement < minAgreement ? `reference gate: agreement ${(100 * agreement).toFixed(2)} % is below --min-agreement ${(100 * minAgreement).toFixed(2)} %\n` : '';
+      if (table) {
+        const text = summaryText(table, { files: shown });
+        const at = text.indexOf('\nfiles:\n');
+        const extra = findingsText(table).map((l) => l + '\n').join('') + ref + gate;
+        io.stdout(at < 0 ? text + extra : text.slice(0, at + 1) + extra + text.slice(at));
+      } else {
+        io.stdout(ref + gate + '\nfiles:\n' + shown.map((f) => `  ${f}\n`).join('') + '\n' + cautionsText() + '\n');
+      }
+    }
+    return code;
+  } finally {
+    progress.stop();
+    await model.close();
+  }
+}

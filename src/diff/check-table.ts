@@ -1,0 +1,77 @@
+import type { Model, Rule, RuleTable, Scenario } from '../types.js';
+import { checkRules } from '../check/index.js';
+import { settleTable } from '../pipeline/settle-table.js';
+import type { MineHooks } from '../pipeline/mine-hooks.js';
+import { toolVersion } from '../version.js';
+
+export interface CheckTableSettings {
+  readonly seed: number;
+  /** Dense samples per rule. */
+  readonly checkSamples: number;
+  /** Confidence of the one-sided exact bounds, e.g. 0.95. */
+  readonly confidence: number;
+  /** Prove the rules by bound propagation where the graph is supported. */
+  readonly prove: boolean;
+  readonly proveBoxes: number;
+  readonly proveSeconds: number;
+  /** Worker threads for proving; default 1 (in this thread). */
+  readonly jobs?: number;
+}
+
+export interface CheckTableOptions {
+  /** The manifest's command, e.g. `check` or `diff`. */
+  readonly command: string;
+  /** Where the rules came from (a path, or a description), stored in the manifest's settings. */
+  readonly source: string;
+  /** Remarks for the reviewer, e.g. bounds clipped to the domain. */
+  readonly notes?: readonly string[];
+}
+
+/**
+ * Checks given rules against one model: dense samples in every box with the exact one-sided
+ * Clopper–Pearson bound (`checkRules`), then, unless turned off, a proof of every rule by bound
+ * propagation and branch and bound (`settleTable`: proven, refuted with an onnxruntime-confirmed
+ * counterexample, or unknown with the proven share). Where the prover cannot read the graph,
+ * the rules keep their sampled status and the table carries a note saying why.
+ * @returns a rule table without fidelity figures (given rules need not cover the domain)
+ */
+export async function checkTable(
+  scenario: Scenario,
+  model: Model,
+  rules: readonly Rule[],
+  settings: CheckTableSettings,
+  options: CheckTableOptions,
+  hooks: MineHooks = {},
+): Promise<RuleTable> {
+  hooks.onStage?.('checking');
+  const checked = await checkRules(rules, scenario.inputs, model.evaluate, {
+    seed: settings.seed,
+    samplesPerRule: settings.checkSamples,
+    confidence: settings.confidence,
+    decision: scenario.decision,
+    onProgress: (done, total) => hooks.onProgress?.('checking', done, total),
+  });
+  const { tool, version } = toolVersion();
+  // jobs changes the speed, never the result, so it is left out of the manifest (as mine does)
+  const { jobs: _jobs, ...recorded } = settings;
+  const table: RuleTable = {
+    manifest: {
+      tool,
+      toolVersion: version,
+      command: options.command,
+      date: new Date().toISOString(),
+      scenario: { path: scenario.scenarioPath, sha256: scenario.scenarioSha256, name: scenario.name },
+      model: { path: model.path, sha256: model.sha256 },
+      seed: settings.seed,
+      settings: { ...recorded, rules: options.source },
+      counts: { rules: rules.length },
+    },
+    inputs: scenario.inputs,
+    advisories: scenario.advisories,
+    decision: scenario.decision,
+    rules: checked,
+    ...(options.notes && options.notes.length > 0 ? { notes: [...options.notes] } : {}),
+  };
+  const proveSettings = { proveBoxes: settings.proveBoxes, proveSeconds: settings.proveSeconds, jobs: settings.jobs ?? 1 };
+  return settings.prove ? settleTable(table, scenario, model, proveSettings, hooks) : table;
+}

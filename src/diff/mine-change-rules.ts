@@ -1,0 +1,65 @@
+import type { Evaluator, InputSpec, Rule, Tree } from '../types.js';
+import { deriveSeed } from '../check/index.js';
+import { sampleDomain } from '../sampling/index.js';
+import { learnTree, pruneSequence } from '../learn/index.js';
+import { mergeRules, roundThresholds, treeToRules } from '../rules/index.js';
+import type { MineHooks } from '../pipeline/mine-hooks.js';
+import { changeEvaluator } from './change-evaluator.js';
+import { CHANGED } from './diff-result.js';
+
+export interface MineChangeOptions {
+  readonly seed: number;
+  /** Samples of both models for learning the tree. */
+  readonly budget: number;
+  /** Largest number of change rules. */
+  readonly maxRules: number;
+  /** Smallest leaf of the full tree, in samples. */
+  readonly minLeaf: number;
+  /** Agreement with the samples that readable thresholds may cost (0..1). */
+  readonly roundTolerance: number;
+}
+
+/** The merged rules of a tree that say CHANGED. */
+function changeRulesOf(tree: Tree, inputs: readonly InputSpec[]): Rule[] {
+  return mergeRules(treeToRules(tree, inputs)).filter((r) => r.allowed[0] === CHANGED);
+}
+
+/**
+ * Readable rules for the region where two models give different advisories, mined with the same
+ * steps as the rule table: the change predicate (`changeEvaluator`) sampled over the domain with
+ * boundary refinement (`sampleDomain`), a CART tree (`learnTree`, Breiman et al., Classification
+ * and Regression Trees, 1984), the largest tree of its minimal cost-complexity pruning sequence
+ * with at most `maxRules` change rules (found by binary search, as the mining pipeline does),
+ * readable thresholds (`roundThresholds`), leaves to boxes, neighbours merged. Only the rules
+ * saying CHANGED are kept, renumbered C1, C2, … in table order.
+ */
+export async function mineChangeRules(
+  inputs: readonly InputSpec[],
+  before: Evaluator,
+  after: Evaluator,
+  options: MineChangeOptions,
+  hooks: MineHooks = {},
+): Promise<Rule[]> {
+  const samples = await sampleDomain(inputs, changeEvaluator(before, after), {
+    seed: deriveSeed(options.seed, 'diff:rules'),
+    budget: options.budget,
+    onProgress: (done, total) => hooks.onProgress?.('sampling changes', done, total),
+  });
+  let changedCount = 0;
+  for (let i = 0; i < samples.n; i++) changedCount += samples.advisory[i]!;
+  if (changedCount === 0) return [];
+  const data = { x: samples.x, n: samples.n, d: inputs.length, labels: samples.advisory, classes: 2 };
+  const seq = pruneSequence(learnTree(data, { minLeaf: options.minLeaf }));
+  const count = (i: number): number => changeRulesOf(seq[i]!.tree, inputs).length;
+  let lo = 0;
+  let hi = seq.length - 1;
+  if (count(lo) > options.maxRules) {
+    while (hi - lo > 1) {
+      const mid = (lo + hi) >> 1;
+      if (count(mid) <= options.maxRules) hi = mid;
+      else lo = mid;
+    }
+  } else hi = lo;
+  const readable = roundThresholds(seq[hi]!.tree, data, inputs, { tolerance: options.roundTolerance });
+  return changeRulesOf(readable, inputs).map((r, i) => ({ ...r, id: `C${i + 1}` }));
+}
