@@ -44,14 +44,19 @@ function stirlingError(m: number): number {
   return (1 / 12 - (1 / 360 - (1 / 1260 - (1 / 1680 - 1 / (1188 * mm)) / mm) / mm) / mm) / m;
 }
 
+/** Loader's switch: the series is used when |x − μ| < 0.1·(x + μ), where it converges fast (v² < 0.01). */
+const DEVIANCE_SERIES_RANGE = 0.1;
+/** Ample for v² < 0.01: each term is 100 times smaller, so ~8 terms reach the last place. */
+const DEVIANCE_SERIES_MAX_TERMS = 1000;
+
 /** Loader's deviance term x ln(x / μ) + μ − x, by a series when x ≈ μ to avoid cancellation. */
 function deviance(x: number, mu: number): number {
-  if (Math.abs(x - mu) < 0.1 * (x + mu)) {
+  if (Math.abs(x - mu) < DEVIANCE_SERIES_RANGE * (x + mu)) {
     let v = (x - mu) / (x + mu);
     let s = (x - mu) * v;
     let ej = 2 * x * v;
     v *= v;
-    for (let j = 1; j < 1000; j++) {
+    for (let j = 1; j < DEVIANCE_SERIES_MAX_TERMS; j++) {
       ej *= v;
       const s1 = s + ej / (2 * j + 1);
       if (s1 === s) return s1;
