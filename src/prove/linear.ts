@@ -1,8 +1,7 @@
 import type { Network } from './network.js';
-import { layerOutSize, maxWidth } from './network.js';
 import { ACTIVATION_GUARD, type IntervalTrace, intervalTrace } from './interval.js';
 import { type LowerSlopeRule, type Relaxation, relaxActivation } from './relax.js';
-import { roundDown } from './float-error.js';
+import { backSubstitute } from './back-substitute.js';
 import { symbolicActivation, symbolicAffine, symbolicInput, tightenInPlace } from './symbolic.js';
 
 /**
@@ -37,92 +36,6 @@ export interface LinearBounds {
   readonly inner: ReadonlyArray<readonly [Float64Array, Float64Array] | undefined>;
 }
 
-/** Relative allowance for float64 rounding in the summed constant and corner terms (≤ 2^22 additions). */
-const SUM_GUARD = 2 ** -30;
-
-interface Pass {
-  readonly lower: Float64Array;
-  readonly coefficients: Float64Array;
-  readonly minimiser: Float64Array;
-  readonly slack: Float64Array;
-}
-
-/**
- * Back-substitutes `rows` linear objectives `lam` (rows × width of layer `upto`'s output)
- * down to the input and minimises them over the box.
- */
-function backSubstitute(net: Network, upto: number, lam: Float64Array, rows: number, relax: (Relaxation | undefined)[], trace: IntervalTrace, lo: ArrayLike<number>, hi: ArrayLike<number>): Pass {
-  const stride = maxWidth(net);
-  let a = new Float64Array(rows * stride);
-  let b = new Float64Array(rows * stride);
-  const w0 = layerOutSize(net.layers[upto]!);
-  for (let r = 0; r < rows; r++) for (let j = 0; j < w0; j++) a[r * stride + j] = lam[r * w0 + j]!;
-  const cst = new Float64Array(rows);
-  const mag = new Float64Array(rows);
-  const pen = new Float64Array(rows);
-  for (let q = upto; q >= 0; q--) {
-    const layer = net.layers[q]!;
-    if (layer.kind === 'affine') {
-      const { inSize, outSize, weights, bias } = layer;
-      const e = trace.noise[q]!;
-      b.fill(0);
-      for (let r = 0; r < rows; r++) {
-        const base = r * stride;
-        for (let j = 0; j < outSize; j++) {
-          const l = a[base + j]!;
-          if (l === 0) continue;
-          cst[r]! += l * bias[j]!;
-          mag[r]! += Math.abs(l * bias[j]!);
-          pen[r]! += Math.abs(l) * e[j]!;
-          const row = j * inSize;
-          for (let i = 0; i < inSize; i++) b[base + i]! += l * weights[row + i]!;
-        }
-      }
-      [a, b] = [b, a];
-    } else {
-      const rel = relax[q]!;
-      const smooth = layer.kind !== 'relu';
-      for (let r = 0; r < rows; r++) {
-        const base = r * stride;
-        for (let j = 0; j < layer.size; j++) {
-          const l = a[base + j]!;
-          if (l === 0) continue;
-          const t = l >= 0 ? l * rel.lowerIntercept[j]! : l * rel.upperIntercept[j]!;
-          a[base + j] = l >= 0 ? l * rel.lowerSlope[j]! : l * rel.upperSlope[j]!;
-          cst[r]! += t;
-          mag[r]! += Math.abs(t);
-          if (smooth) pen[r]! += Math.abs(l) * ACTIVATION_GUARD;
-        }
-      }
-    }
-  }
-  const d = net.inputSize;
-  const lower = new Float64Array(rows);
-  const coefficients = new Float64Array(rows * d);
-  const minimiser = new Float64Array(rows * d);
-  for (let r = 0; r < rows; r++) {
-    let s = cst[r]!;
-    let m = mag[r]! + pen[r]!;
-    for (let i = 0; i < d; i++) {
-      const c = a[r * stride + i]!;
-      const x = c >= 0 ? lo[i]! : hi[i]!;
-      coefficients[r * d + i] = c;
-      minimiser[r * d + i] = x;
-      s += c * x;
-      m += Math.abs(c * x);
-    }
-    lower[r] = roundDown(s - pen[r]! - SUM_GUARD * m);
-  }
-  return { lower, coefficients, minimiser, slack: pen };
-}
-
-/**
- * Linear lower bounds of every output of `net` over the box [lo, hi] (network-input
- * coordinates), with the corner minimising each bound as a counterexample candidate.
- *
- * @param options see LinearOptions; refinement off keeps the interval bounds of inner
- *   activations, which is faster and looser
- */
 export interface LinearOptions {
   /**
    * Bounds of the inputs of activations: 'interval' (interval propagation only), 'forward'

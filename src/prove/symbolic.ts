@@ -18,7 +18,9 @@ import { roundDown, roundUp } from './float-error.js';
 export interface Symbolic {
   readonly d: number;
   readonly width: number;
-  /** width × (d + 1): coefficients then constant of each lower function. */
+  /** Row length: d + 1 rounded up to a multiple of 4 (the padding stays zero). */
+  readonly pad: number;
+  /** width × pad: coefficients, then the constant at index d, of each lower function. */
   readonly low: Float64Array;
   readonly up: Float64Array;
   readonly mass: Float64Array;
@@ -29,13 +31,14 @@ const SYMBOLIC_GUARD = 2 ** -30;
 /** The identity functions of the input box. */
 export function symbolicInput(lo: ArrayLike<number>, hi: ArrayLike<number>): Symbolic {
   const d = lo.length;
-  const low = new Float64Array(d * (d + 1));
+  const pad = 4 * Math.ceil((d + 1) / 4);
+  const low = new Float64Array(d * pad);
   const mass = new Float64Array(d);
   for (let i = 0; i < d; i++) {
-    low[i * (d + 1) + i] = 1;
+    low[i * pad + i] = 1;
     mass[i] = Math.max(Math.abs(lo[i]!), Math.abs(hi[i]!));
   }
-  return { d, width: d, low, up: Float64Array.from(low), mass };
+  return { d, width: d, pad, low, up: Float64Array.from(low), mass };
 }
 
 /** Per row, the columns of positive then negative weights: sign-split loops without branches. */
@@ -75,40 +78,60 @@ function signSplit(layer: AffineLayer): SignSplit {
 export function symbolicAffine(s: Symbolic, layer: AffineLayer, noise: Float64Array): Symbolic {
   const { inSize, outSize, weights, bias } = layer;
   const { start, split, cols, absRow } = signSplit(layer);
-  const w1 = s.d + 1;
-  const low = new Float64Array(outSize * w1);
-  const up = new Float64Array(outSize * w1);
+  const pad = s.pad;
+  const low = new Float64Array(outSize * pad);
+  const up = new Float64Array(outSize * pad);
   const mass = new Float64Array(outSize);
   const sl = s.low;
   const su = s.up;
   let maxMass = 0;
   for (let k = 0; k < inSize; k++) maxMass = Math.max(maxMass, s.mass[k]!);
   for (let j = 0; j < outSize; j++) {
-    const o = j * w1;
     const row = j * inSize;
-    for (let q = start[j]!; q < split[j]!; q++) {
-      const k = cols[q]!;
-      const w = weights[row + k]!;
-      const src = k * w1;
-      for (let t = 0; t < w1; t++) {
-        low[o + t]! += w * sl[src + t]!;
-        up[o + t]! += w * su[src + t]!;
+    // four coefficients at a time, lower and upper, in registers across the columns
+    for (let t = 0; t < pad; t += 4) {
+      let l0 = 0, l1 = 0, l2 = 0, l3 = 0, u0 = 0, u1 = 0, u2 = 0, u3 = 0;
+      for (let q = start[j]!; q < split[j]!; q++) {
+        const k = cols[q]!;
+        const w = weights[row + k]!;
+        const p = k * pad + t;
+        l0 += w * sl[p]!;
+        l1 += w * sl[p + 1]!;
+        l2 += w * sl[p + 2]!;
+        l3 += w * sl[p + 3]!;
+        u0 += w * su[p]!;
+        u1 += w * su[p + 1]!;
+        u2 += w * su[p + 2]!;
+        u3 += w * su[p + 3]!;
       }
-    }
-    for (let q = split[j]!; q < start[j + 1]!; q++) {
-      const k = cols[q]!;
-      const w = weights[row + k]!;
-      const src = k * w1;
-      for (let t = 0; t < w1; t++) {
-        low[o + t]! += w * su[src + t]!;
-        up[o + t]! += w * sl[src + t]!;
+      for (let q = split[j]!; q < start[j + 1]!; q++) {
+        const k = cols[q]!;
+        const w = weights[row + k]!;
+        const p = k * pad + t;
+        l0 += w * su[p]!;
+        l1 += w * su[p + 1]!;
+        l2 += w * su[p + 2]!;
+        l3 += w * su[p + 3]!;
+        u0 += w * sl[p]!;
+        u1 += w * sl[p + 1]!;
+        u2 += w * sl[p + 2]!;
+        u3 += w * sl[p + 3]!;
       }
+      const o = j * pad + t;
+      low[o] = l0;
+      low[o + 1] = l1;
+      low[o + 2] = l2;
+      low[o + 3] = l3;
+      up[o] = u0;
+      up[o + 1] = u1;
+      up[o + 2] = u2;
+      up[o + 3] = u3;
     }
-    low[o + s.d]! += bias[j]! - noise[j]!;
-    up[o + s.d]! += bias[j]! + noise[j]!;
+    low[j * pad + s.d]! += bias[j]! - noise[j]!;
+    up[j * pad + s.d]! += bias[j]! + noise[j]!;
     mass[j] = absRow[j]! * maxMass + Math.abs(bias[j]!) + noise[j]!;
   }
-  return { d: s.d, width: outSize, low, up, mass };
+  return { d: s.d, width: outSize, pad, low, up, mass };
 }
 
 /**
@@ -117,7 +140,7 @@ export function symbolicAffine(s: Symbolic, layer: AffineLayer, noise: Float64Ar
  * (the runtime's activation error, 0 for ReLU).
  */
 export function symbolicActivation(s: Symbolic, rel: Relaxation, guard: number): Symbolic {
-  const w1 = s.d + 1;
+  const w1 = s.pad;
   const low = new Float64Array(s.width * w1);
   const up = new Float64Array(s.width * w1);
   const mass = new Float64Array(s.width);
@@ -133,13 +156,13 @@ export function symbolicActivation(s: Symbolic, rel: Relaxation, guard: number):
     up[o + s.d]! += rel.upperIntercept[j]! + guard;
     mass[j] = Math.max(ls, us) * s.mass[j]! + Math.max(Math.abs(rel.lowerIntercept[j]!), Math.abs(rel.upperIntercept[j]!)) + guard;
   }
-  return { d: s.d, width: s.width, low, up, mass };
+  return { d: s.d, width: s.width, pad: s.pad, low, up, mass };
 }
 
 /** Intersects [l, u] in place with the box's range of the lower and upper functions. */
 export function tightenInPlace(s: Symbolic, lo: ArrayLike<number>, hi: ArrayLike<number>, l: Float64Array, u: Float64Array): void {
   const d = s.d;
-  const w1 = d + 1;
+  const w1 = s.pad;
   for (let j = 0; j < s.width; j++) {
     let a = s.low[j * w1 + d]!;
     let b = s.up[j * w1 + d]!;
