@@ -5,6 +5,7 @@ import { mergeRules, roundThresholds, treeToRules } from '../rules/index.js';
 import { checkRules, measureFidelity } from '../check/index.js';
 import { toolVersion } from '../version.js';
 import { settleTable } from './settle-table.js';
+import { recountTree } from './recount-tree.js';
 import type { MineHooks } from './mine-hooks.js';
 
 export type { MineHooks } from './mine-hooks.js';
@@ -13,6 +14,8 @@ export interface MineSettings {
   readonly seed: number;
   /** Samples of the network used to learn the tree. */
   readonly budget: number;
+  /** Share of the budget spent refining near decision boundaries (the rest covers the box evenly). */
+  readonly boundaryShare: number;
   /** Largest number of rules in the table (after merging). */
   readonly maxRules: number;
   /** Smallest number of samples in a leaf of the full tree before pruning. */
@@ -72,12 +75,15 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
   const samples = await sampleDomain(scenario.inputs, model.evaluate, {
     seed: settings.seed,
     budget: settings.budget,
+    boundaryShare: settings.boundaryShare,
     onProgress: (done, total) => hooks.onProgress?.('sampling', done, total),
   });
   hooks.onStage?.('learning');
   const data = { x: samples.x, n: samples.n, d, labels: samples.advisory, classes: k };
   const full = learnTree(data, { minLeaf: settings.minLeaf });
-  const pruned = pickPrunedTree(full, scenario, settings.maxRules);
+  // Prune by volume: the space-filling rows (the first ones; docs/sampling.md) recount the tree.
+  const spaceFilling = settings.budget - Math.floor(settings.budget * settings.boundaryShare);
+  const pruned = pickPrunedTree(recountTree(full, samples.x, spaceFilling, samples.advisory), scenario, settings.maxRules);
   hooks.onStage?.('rules');
   const readable = roundThresholds(pruned, data, scenario.inputs, { tolerance: settings.roundTolerance });
   const rules = rulesOf(readable, scenario);

@@ -12,6 +12,7 @@ import { mine } from '../../src/pipeline/mine.js';
 const SETTINGS = {
   seed: 7,
   budget: 40_000,
+  boundaryShare: 0.3,
   maxRules: 60,
   minLeaf: 5,
   roundTolerance: 0.001,

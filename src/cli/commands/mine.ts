@@ -13,6 +13,8 @@ import { EXIT } from '../exit-codes.js';
 
 export const MINE_DEFAULTS = {
   samples: 200_000,
+  /** Measured on both demo scenarios (docs/performance.md): 0.3 keeps survey-boat's fidelity and costs the oblique cruise-spacing boundaries least. */
+  boundaryShare: 0.3,
   maxRules: 60,
   minLeaf: 5,
   /** 0.1 percentage point of agreement with the samples may be traded for readable thresholds. */
@@ -29,6 +31,7 @@ export function mineBuilder<T>(y: Argv<T>) {
     .option('out', { type: 'string', describe: 'run folder (default runs/<scenario>-<timestamp>)' })
     .option('model', { type: 'string', describe: 'model file instead of the one the scenario names' })
     .option('samples', { type: 'number', default: MINE_DEFAULTS.samples, describe: 'network samples for learning the tree' })
+    .option('boundary-share', { type: 'number', default: MINE_DEFAULTS.boundaryShare, describe: 'share of the samples spent near decision boundaries (0..1)' })
     .option('max-rules', { type: 'number', default: MINE_DEFAULTS.maxRules, describe: 'largest number of rules in the table' })
     .option('min-leaf', { type: 'number', default: MINE_DEFAULTS.minLeaf, describe: 'smallest leaf of the full tree, in samples' })
     .option('round-tolerance', { type: 'number', default: MINE_DEFAULTS.roundTolerance, describe: 'agreement that readable thresholds may cost (0..1)' })
@@ -46,6 +49,11 @@ type MineArgs = Awaited<ReturnType<ReturnType<typeof mineBuilder>['parseAsync']>
 
 function positiveInt(name: string, v: number): number {
   if (!Number.isInteger(v) || v < 1) throw new UsageError(`--${name}: expected a positive integer, found ${v}`);
+  return v;
+}
+
+function shareBelowOne(name: string, v: number): number {
+  if (!(v >= 0 && v < 1)) throw new UsageError(`--${name}: expected a number in [0, 1), found ${v}`);
   return v;
 }
 
@@ -67,6 +75,7 @@ export async function runMine(args: MineArgs, io: CliIo): Promise<number> {
   const settings = {
     seed: positiveIntOrZero('seed', args.seed),
     budget: positiveInt('samples', args.samples),
+    boundaryShare: shareBelowOne('boundary-share', args['boundary-share']),
     maxRules: positiveInt('max-rules', args['max-rules']),
     minLeaf: positiveInt('min-leaf', args['min-leaf']),
     roundTolerance: args['round-tolerance'],
