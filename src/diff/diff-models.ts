@@ -94,6 +94,7 @@ export async function diffModels(
     maxRules: settings.maxChangeRules,
     minLeaf: settings.minLeaf,
     roundTolerance: settings.roundTolerance,
+    boundaryShare: settings.mine.boundaryShare,
   }, hooks);
   const checkedChanges = await checkChangeRules(changeRules, scenario.inputs, before.evaluate, after.evaluate, {
     seed: settings.seed,

@@ -4,6 +4,7 @@ import { sampleDomain } from '../sampling/index.js';
 import { learnTree, pruneSequence } from '../learn/index.js';
 import { mergeRules, roundThresholds, treeToRules } from '../rules/index.js';
 import type { MineHooks } from '../pipeline/mine-hooks.js';
+import { recountTree } from '../pipeline/recount-tree.js';
 import { changeEvaluator } from './change-evaluator.js';
 import { CHANGED } from './diff-result.js';
 
@@ -17,6 +18,8 @@ export interface MineChangeOptions {
   readonly minLeaf: number;
   /** Agreement with the samples that readable thresholds may cost (0..1). */
   readonly roundTolerance: number;
+  /** Share of the budget spent near boundaries (sampleDomain's refinement), in [0, 1). */
+  readonly boundaryShare: number;
 }
 
 /** The merged rules of a tree that say CHANGED. */
@@ -28,7 +31,8 @@ function changeRulesOf(tree: Tree, inputs: readonly InputSpec[]): Rule[] {
  * Readable rules for the region where two models give different advisories, mined with the same
  * steps as the rule table: the change predicate (`changeEvaluator`) sampled over the domain with
  * boundary refinement (`sampleDomain`), a CART tree (`learnTree`, Breiman et al., Classification
- * and Regression Trees, 1984), the largest tree of its minimal cost-complexity pruning sequence
+ * and Regression Trees, 1984) recounted on the space-filling samples so that pruning weighs regions
+ * by volume (`recountTree`), the largest tree of its minimal cost-complexity pruning sequence
  * with at most `maxRules` change rules (found by binary search, as the mining pipeline does),
  * readable thresholds (`roundThresholds`), leaves to boxes, neighbours merged. Only the rules
  * saying CHANGED are kept, renumbered C1, C2, … in table order.
@@ -43,13 +47,17 @@ export async function mineChangeRules(
   const samples = await sampleDomain(inputs, changeEvaluator(before, after), {
     seed: deriveSeed(options.seed, 'diff:rules'),
     budget: options.budget,
+    boundaryShare: options.boundaryShare,
     onProgress: (done, total) => hooks.onProgress?.('sampling changes', done, total),
   });
   let changedCount = 0;
   for (let i = 0; i < samples.n; i++) changedCount += samples.advisory[i]!;
   if (changedCount === 0) return [];
   const data = { x: samples.x, n: samples.n, d: inputs.length, labels: samples.advisory, classes: 2 };
-  const seq = pruneSequence(learnTree(data, { minLeaf: options.minLeaf }));
+  // the space-filling rows come first (sampleDomain); they recount the tree by volume
+  const spaceFilling = options.budget - Math.floor(options.budget * options.boundaryShare);
+  const full = learnTree(data, { minLeaf: options.minLeaf });
+  const seq = pruneSequence(recountTree(full, samples.x, spaceFilling, samples.advisory));
   const count = (i: number): number => changeRulesOf(seq[i]!.tree, inputs).length;
   let lo = 0;
   let hi = seq.length - 1;

@@ -18,7 +18,7 @@ const SETTINGS: DiffSettings = {
   proveSeconds: 30,
   jobs: 1,
   mine: {
-    seed: 1, budget: 10_000, maxRules: 10, minLeaf: 5, roundTolerance: 0.001, checkSamples: 1000,
+    seed: 1, budget: 10_000, maxRules: 10, minLeaf: 5, roundTolerance: 0.001, boundaryShare: 0.3, checkSamples: 1000,
     fidelitySamples: 2000, confidence: 0.95, prove: true, proveBoxes: 2000, proveSeconds: 30, jobs: 1,
   },
   changeSamples: 4000,

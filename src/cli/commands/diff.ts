@@ -99,6 +99,7 @@ export async function runDiff(args: DiffArgs, io: CliIo): Promise<number> {
       maxRules: positiveInt('max-rules', args['max-rules']),
       minLeaf: positiveInt('min-leaf', args['min-leaf']),
       roundTolerance,
+      boundaryShare: MINE_DEFAULTS.boundaryShare,
       fidelitySamples: MINE_DEFAULTS.fidelitySamples,
     },
     changeSamples: positiveInt('change-samples', args['change-samples']),
