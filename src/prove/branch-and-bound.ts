@@ -156,18 +156,16 @@ export async function proveBox(net: Network, box: Box, allowed: readonly number[
       screen.push(allowance, allowance);
       for (let i = 0; i < d; i++) candidates.push(0.5 * p.lo[i]! + 0.5 * p.hi[i]!);
       for (let i = 0; i < d; i++) candidates.push(toScenarioUnits(lin.minimiser[r * d + i]!, i, options.normalize, p.lo[i]!, p.hi[i]!));
-      open.push({ piece: p, dim: splitDimension(lin, r, p, rootWidth, options.normalize) });
+      open.push({ piece: p, dim: splitDimension(lin, r, p, rootWidth, blo, bhi) });
     }
     const cex = await confirmCandidates(net, Float64Array.from(candidates), candidates.length / d, allowedSet, decision, options.normalize, options.confirm, screen);
     if (cex) return result('refuted', cex);
     for (const { piece, dim } of open) {
-      const a = dim >= 0 ? piece.lo[dim]! : 0;
-      const z = dim >= 0 ? piece.hi[dim]! : 0;
-      const mid = a + (z - a) / 2;
-      if (!(mid > a && mid < z)) {
+      if (dim < 0) {
         unresolved++;
         continue;
       }
+      const mid = piece.lo[dim]! + (piece.hi[dim]! - piece.lo[dim]!) / 2;
       const left = { lo: Float64Array.from(piece.lo), hi: Float64Array.from(piece.hi) };
       const right = { lo: Float64Array.from(piece.lo), hi: Float64Array.from(piece.hi) };
       left.hi[dim] = mid;

@@ -1,4 +1,3 @@
-import type { Normalization } from '../types.js';
 import type { MarginSpec } from './margin-network.js';
 import type { LinearBounds } from './linear.js';
 
@@ -44,26 +43,41 @@ export function worstRow(lower: ArrayLike<number>, spec: MarginSpec): number {
 }
 
 /**
+ * Whether halving input i can still shrink the network's input box: its float32 range
+ * [netLo, netHi] must be wider than two float32 ulps, and the midpoint in units representable.
+ */
+function splittable(i: number, piece: { readonly lo: Float64Array; readonly hi: Float64Array }, netLo: ArrayLike<number>, netHi: ArrayLike<number>): boolean {
+  const a = piece.lo[i]!;
+  const z = piece.hi[i]!;
+  const mid = a + (z - a) / 2;
+  if (!(mid > a && mid < z)) return false;
+  const ulp = Math.max(Math.abs(netLo[i]!), Math.abs(netHi[i]!)) * 2 ** -23 + 2 ** -149;
+  return netHi[i]! - netLo[i]! > 2 * ulp;
+}
+
+/**
  * The input to halve: the largest width × |∂ bound / ∂ input| of the row's linear lower bound
  * (widths and coefficients in network-input coordinates, so the product is in score units).
  * Where every product is zero (or the bound overflowed), the input widest relative to the
- * root box. −1 when no input has a width left.
+ * root box. Only inputs that can still be split count; −1 when none can.
+ *
+ * @param netLo the piece's box in network-input coordinates (float32 outward)
  */
 export function splitDimension(
   lin: LinearBounds,
   row: number,
   piece: { readonly lo: Float64Array; readonly hi: Float64Array },
   rootWidth: Float64Array,
-  normalize: Normalization | undefined,
+  netLo: ArrayLike<number>,
+  netHi: ArrayLike<number>,
 ): number {
   const d = piece.lo.length;
   let best = -1;
   let bestScore = 0;
   if (!lin.overflow) {
     for (let i = 0; i < d; i++) {
-      const width = (piece.hi[i]! - piece.lo[i]!) / Math.abs(normalize ? normalize.scale[i]! : 1);
-      const score = width * Math.abs(lin.coefficients[row * d + i]!);
-      if (score > bestScore) {
+      const score = (netHi[i]! - netLo[i]!) * Math.abs(lin.coefficients[row * d + i]!);
+      if (score > bestScore && splittable(i, piece, netLo, netHi)) {
         bestScore = score;
         best = i;
       }
@@ -73,7 +87,7 @@ export function splitDimension(
   for (let i = 0; i < d; i++) {
     if (rootWidth[i]! <= 0) continue;
     const score = (piece.hi[i]! - piece.lo[i]!) / rootWidth[i]!;
-    if (score > bestScore) {
+    if (score > bestScore && splittable(i, piece, netLo, netHi)) {
       bestScore = score;
       best = i;
     }
