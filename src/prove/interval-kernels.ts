@@ -9,31 +9,37 @@ import { ACTIVATION_ABS_ERROR, MAX_SAFE_MAGNITUDE, NOISE_INFLATION, roundDown, r
 /** Float64 rounding of Math.exp/Math.tanh, added to the runtime's activation error. */
 export const ACTIVATION_GUARD = ACTIVATION_ABS_ERROR + 2 ** -40;
 
+const absCache = new WeakMap<AffineLayer, Float64Array>();
+
+/** |W| of a layer, computed once per layer. */
+export function absWeights(layer: AffineLayer): Float64Array {
+  let a = absCache.get(layer);
+  if (!a) {
+    a = layer.weights.map(Math.abs);
+    absCache.set(layer, a);
+  }
+  return a;
+}
+
 /** Boxes per block: block q holds value k of its box l at q·stride·LANES + k·LANES + l. */
 export const LANES = 8;
 const activeIndex = new Int32Array(4096);
 
 /**
- * c' = W c + b and r' = |W| r + e for blocks of LANES boxes stored interleaved, so each
- * weight load serves eight boxes from one cache line; inputs that are exactly zero (c = r = 0,
- * an inactive ReLU) in all eight boxes are skipped. e = (s_j·M + c_j)·NOISE_INFLATION per box,
- * M = max_k |c_k| + r_k.
+ * c' = W c + b and r' = |W| r for blocks of LANES boxes stored interleaved, so each weight
+ * load serves eight boxes from one cache line; inputs that are exactly zero (c = r = 0, an
+ * inactive ReLU) in all eight boxes are skipped. (affine-wasm.ts computes the same sums, in
+ * the same order, with WebAssembly SIMD.)
  */
-export function affineStepBlocks(layer: AffineLayer, aw: Float64Array, cc: Float64Array, rr: Float64Array, nc: Float64Array, nr: Float64Array, blocks: number, stride: number, over: Uint8Array): void {
-  const { inSize, outSize, weights, bias, errorScale, errorConst } = layer;
+export function affineProductBlocks(layer: AffineLayer, aw: Float64Array, cc: Float64Array, rr: Float64Array, nc: Float64Array, nr: Float64Array, blocks: number, stride: number): void {
+  const { inSize, outSize, weights, bias } = layer;
   const idx = activeIndex;
-  const m = new Float64Array(LANES);
   for (let q = 0; q < blocks; q++) {
     const base = q * stride * LANES;
-    m.fill(0);
     let na = 0;
     for (let k = 0; k < inSize; k++) {
       let any = 0;
-      for (let l = 0; l < LANES; l++) {
-        const v = Math.abs(cc[base + k * LANES + l]!) + rr[base + k * LANES + l]!;
-        if (v > m[l]!) m[l] = v;
-        any += v;
-      }
+      for (let l = 0; l < LANES; l++) any += Math.abs(cc[base + k * LANES + l]!) + rr[base + k * LANES + l]!;
       if (any !== 0) idx[na++] = k;
     }
     for (let j = 0; j < outSize; j++) {
@@ -84,6 +90,29 @@ export function affineStepBlocks(layer: AffineLayer, aw: Float64Array, cc: Float
       nr[o + 5] = r5;
       nr[o + 6] = r6;
       nr[o + 7] = r7;
+    }
+  }
+}
+
+/**
+ * Adds each affine output's float32 error bound e = (s_j·M + c_j)·NOISE_INFLATION to its
+ * radius, M = max_k |c_k| + r_k over the layer's input (cc, rr) per box, and marks boxes whose
+ * bounds reach MAX_SAFE_MAGNITUDE in `over`.
+ */
+export function addNoiseBlocksInPlace(layer: AffineLayer, cc: Float64Array, rr: Float64Array, nc: Float64Array, nr: Float64Array, blocks: number, stride: number, over: Uint8Array): void {
+  const { inSize, outSize, errorScale, errorConst } = layer;
+  const m = new Float64Array(LANES);
+  for (let q = 0; q < blocks; q++) {
+    const base = q * stride * LANES;
+    m.fill(0);
+    for (let k = 0; k < inSize; k++) {
+      for (let l = 0; l < LANES; l++) {
+        const v = Math.abs(cc[base + k * LANES + l]!) + rr[base + k * LANES + l]!;
+        if (v > m[l]!) m[l] = v;
+      }
+    }
+    for (let j = 0; j < outSize; j++) {
+      const o = base + j * LANES;
       const s = errorScale[j]!;
       const e0 = errorConst[j]!;
       for (let l = 0; l < LANES; l++) {

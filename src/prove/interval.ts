@@ -1,7 +1,8 @@
-import type { AffineLayer, Network } from './network.js';
+import type { Network } from './network.js';
 import { maxWidth } from './network.js';
 import { roundDown, roundUp } from './float-error.js';
-import { LANES, affineStepBlocks, affineStepSingle, reluStepInPlace, setCentreRadius, smoothStepInPlace } from './interval-kernels.js';
+import { LANES, absWeights, affineStepSingle, reluStepInPlace, setCentreRadius, smoothStepInPlace } from './interval-kernels.js';
+import { type BlockWorkspace, blockWorkspace } from './block-workspace.js';
 export { ACTIVATION_GUARD } from './interval-kernels.js';
 
 /** Blocks of LANES boxes propagated together by intervalBounds (work arrays of 4 × 128 × width doubles). */
@@ -28,29 +29,20 @@ export interface IntervalTrace {
   readonly overflow: boolean;
 }
 
-const absCache = new WeakMap<AffineLayer, Float64Array>();
-
-function absWeights(layer: AffineLayer): Float64Array {
-  let a = absCache.get(layer);
-  if (!a) {
-    a = layer.weights.map(Math.abs);
-    absCache.set(layer, a);
-  }
-  return a;
-}
-
 /**
- * Propagates `blocks` blocks of LANES interleaved boxes (centre c, radius r) through the
- * layers; the result ends in c and r. `over[box]` is set when float32 overflow is possible.
+ * Propagates `blocks` blocks of LANES interleaved boxes through the layers, starting from the
+ * workspace's (c, r); returns the pair holding the result. `over[box]` is set when float32
+ * overflow is possible.
  */
-function propagateBlocks(net: Network, c: Float64Array, r: Float64Array, tc: Float64Array, tr: Float64Array, blocks: number, stride: number, over: Uint8Array): void {
-  let cc = c;
-  let rr = r;
-  let nc = tc;
-  let nr = tr;
+function propagateBlocks(net: Network, ws: BlockWorkspace, blocks: number, stride: number, over: Uint8Array): [Float64Array, Float64Array] {
+  let cc = ws.c;
+  let rr = ws.r;
+  let nc = ws.tc;
+  let nr = ws.tr;
   for (const layer of net.layers) {
     if (layer.kind === 'affine') {
-      affineStepBlocks(layer, absWeights(layer), cc, rr, nc, nr, blocks, stride, over);
+      ws.products(layer, cc, rr, nc, nr, blocks);
+      ws.noise(layer, cc, rr, nc, nr, blocks, over);
       const t1 = cc;
       cc = nc;
       nc = t1;
@@ -58,15 +50,12 @@ function propagateBlocks(net: Network, c: Float64Array, r: Float64Array, tc: Flo
       rr = nr;
       nr = t2;
     } else if (layer.kind === 'relu') {
-      reluStepInPlace(cc, rr, blocks, stride * LANES, layer.size * LANES);
+      ws.relu(cc, rr, blocks, layer.size * LANES);
     } else {
       smoothStepInPlace(layer.kind, cc, rr, blocks, stride * LANES, layer.size * LANES);
     }
   }
-  if (cc !== c) {
-    c.set(cc.subarray(0, blocks * stride * LANES));
-    r.set(rr.subarray(0, blocks * stride * LANES));
-  }
+  return [cc, rr];
 }
 
 /**
@@ -78,31 +67,28 @@ function propagateBlocks(net: Network, c: Float64Array, r: Float64Array, tc: Flo
  * @param n number of boxes
  * @param lowerOut n × outputSize: receives lower bounds (−Infinity where overflow is possible)
  * @param upperOut optional n × outputSize: receives upper bounds (+Infinity likewise)
+ * @param options.wasm false forces the TypeScript kernel (same results, slower)
  */
-export function intervalBounds(net: Network, lo: Float64Array, hi: Float64Array, n: number, lowerOut: Float64Array, upperOut?: Float64Array): void {
+export function intervalBounds(net: Network, lo: Float64Array, hi: Float64Array, n: number, lowerOut: Float64Array, upperOut?: Float64Array, options: { readonly wasm?: boolean } = {}): void {
   const stride = maxWidth(net);
   const d = net.inputSize;
   const k = net.outputSize;
   // chunks small enough that the four work arrays stay in cache across the layers
-  const blocks = Math.max(1, Math.min(Math.ceil(n / LANES), CHUNK_BLOCKS));
-  const size = blocks * stride * LANES;
-  const c = new Float64Array(size);
-  const r = new Float64Array(size);
-  const tc = new Float64Array(size);
-  const tr = new Float64Array(size);
+  const blocks = CHUNK_BLOCKS;
+  const ws = blockWorkspace(net, blocks, stride, options);
   const over = new Uint8Array(blocks * LANES);
   for (let first = 0; first < n; first += blocks * LANES) {
     const m = Math.min(blocks * LANES, n - first);
     const used = Math.ceil(m / LANES);
     over.fill(0);
-    c.fill(0, 0, used * stride * LANES);
-    r.fill(0, 0, used * stride * LANES);
+    ws.c.fill(0, 0, used * stride * LANES);
+    ws.r.fill(0, 0, used * stride * LANES);
     for (let b = 0; b < m; b++) {
       const src = (first + b) * d;
       const at = Math.floor(b / LANES) * stride * LANES + (b % LANES);
-      for (let i = 0; i < d; i++) setCentreRadius(c, r, at + i * LANES, lo[src + i]!, hi[src + i]!);
+      for (let i = 0; i < d; i++) setCentreRadius(ws.c, ws.r, at + i * LANES, lo[src + i]!, hi[src + i]!);
     }
-    propagateBlocks(net, c, r, tc, tr, used, stride, over);
+    const [c, r] = propagateBlocks(net, ws, used, stride, over);
     for (let b = 0; b < m; b++) {
       const dst = (first + b) * k;
       const at = Math.floor(b / LANES) * stride * LANES + (b % LANES);
