@@ -7,15 +7,15 @@ import { roundDown, roundUp } from './float-error.js';
  * ReLU: stable neurons are exact; an unstable one (l < 0 < u) is bounded above by the chord
  * u(z − l)/(u − l) and below by z when u ≥ −l, else by 0 — the adaptive lower bound of
  * H. Zhang, T.-W. Weng, P.-Y. Chen, C.-J. Hsieh, L. Daniel, "Efficient Neural Network
- * Robustness Certification with General Activation Functions", NeurIPS 2018 (CROWN), which
+ * Robustness Certification with General Activation Functions", NeurIPS 2018, which
  * is the area-minimising choice of G. Singh, T. Gehr, M. Püschel, M. Vechev, "An Abstract
- * Domain for Certifying Neural Networks", POPL 2019 (DeepPoly), §4. The rule 'zero' always
- * takes 0, the choice of DeepPoly's worked example (§2); any slope in [0, 1] is sound.
+ * Domain for Certifying Neural Networks", POPL 2019, §4. The rule 'zero' always
+ * takes 0, the choice in the worked example of Singh et al. (§2); any slope in [0, 1] is sound.
  *
  * Sigmoid and tanh (S-shaped, convex for z ≤ 0 and concave for z ≥ 0): with
  * λ = min(f'(l), f'(u)), the lines f(l) + λ(z − l) ≤ f(z) ≤ f(u) + λ(z − u) hold on any
  * interval (f' is smallest at an endpoint); on the convex side the chord is the upper bound,
- * on the concave side the lower bound (DeepPoly, §4.3). Slopes and intercepts are nudged so
+ * on the concave side the lower bound (Singh et al. 2019, §4.3). Slopes and intercepts are nudged so
  * the lines stay valid after float64 rounding; the runtime's own activation error is charged
  * separately (ACTIVATION_GUARD).
  */

@@ -95,7 +95,7 @@ describe('linear bounds, exact cases', () => {
     expectBounds(intervalRange(max2, [-1, -1], [1, 1]), [[-1], [3]]);
   });
 
-  it('reproduces the worked example of DeepPoly (Singh et al., POPL 2019, §2)', () => {
+  it('reproduces the worked example of Singh et al., "An Abstract Domain for Certifying Neural Networks" (POPL 2019, §2)', () => {
     // From memory of the paper's running example: x1, x2 ∈ [−1, 1]; x3 = x1 + x2,
     // x4 = x1 − x2; x5, x6 = relu; x7 = x5 + x6, x8 = x5 − x6; x9, x10 = relu;
     // x11 = x9 + x10 + 1, x12 = x10, with lower ReLU lines y ≥ 0. The paper's back-substitution
