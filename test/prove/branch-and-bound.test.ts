@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { writeMlpOnnx, type DenseLayer } from '../../src/model/onnx-write.js';
 import { linearBounds, marginNetwork, marginSpec, proveBox, readOnnxNetwork, type Box, type Network } from '../../src/prove/index.js';
-import { mulberry32, ortAdvisor, randomMlp, samplePoints, steppingClock } from './helpers.js';
+import { graphModel, mulberry32, ortAdvisor, randomMlp, samplePoints, steppingClock } from './helpers.js';
 
 function read(bytes: Uint8Array): Network {
   const r = readOnnxNetwork(bytes);
@@ -86,6 +86,28 @@ describe('proveBox', () => {
     const timed = await proveBox(tent, [[0.5, 2]], [0], 'argmax', { maxBoxes: 1e6, maxSeconds: 2.5, now: steppingClock(1000), confirm: ort.confirm, batchSize: 4 });
     expect(timed.status).toBe('unknown');
     expect(timed.pieces).toBe(3);
+    await ort.release();
+  });
+
+  it('proves and refutes through a final Sigmoid (margins taken after the activation)', async () => {
+    // s0 = σ(x), s1 = σ(−x): advisory 0 exactly where x > 0
+    const bytes = graphModel(
+      [
+        { name: 'g', opType: 'Gemm', input: ['x', 'W'], output: ['z'] },
+        { name: 'sig', opType: 'Sigmoid', input: ['z'], output: ['y'] },
+      ],
+      [{ name: 'W', dims: [1, 2], values: [1, -1] }],
+      1,
+      2,
+    );
+    const net = read(bytes);
+    expect(net.layers[net.layers.length - 1]!.kind).toBe('sigmoid');
+    const ort = await ortAdvisor(bytes, 1, 'argmax');
+    const ok = await proveBox(net, [[0.125, 1]], [0], 'argmax', { maxBoxes: 1000, maxSeconds: 60, now: clock(), confirm: ort.confirm });
+    expect(ok.status).toBe('proven');
+    const bad = await proveBox(net, [[-0.125, 1]], [0], 'argmax', { maxBoxes: 1000, maxSeconds: 60, now: clock(), confirm: ort.confirm });
+    expect(bad.status).toBe('refuted');
+    expect(bad.counterexample!.x[0]).toBeLessThanOrEqual(0);
     await ort.release();
   });
 
