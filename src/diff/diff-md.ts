@@ -25,11 +25,12 @@ export function diffMdText(result: DiffResult, gates: readonly GateOutcome[]): s
     '',
     REGRESSION_VERDICTS.map((v) => `${result.rules.filter((r) => r.verdict === v).length} ${v}`).join(', '),
     '',
-    '| rule | verdict | before | after | after: violations / samples |',
-    '| --- | --- | --- | --- | --- |',
+    '| rule | verdict | before | after | violations / samples before | after |',
+    '| --- | --- | --- | --- | --- | --- |',
   );
   for (const r of result.rules) {
-    L.push(`| \`${cell(formatRule(r.rule, inputs, advisories))}\` | ${r.verdict} | ${r.before.status} | ${r.after.status} | ${count(r.after.violations)} / ${count(r.after.samples)} |`);
+    const rate = (e: typeof r.before): string => `${count(e.violations)} / ${count(e.samples)}`;
+    L.push(`| \`${cell(formatRule(r.rule, inputs, advisories))}\` | ${r.verdict} | ${r.before.status} | ${r.after.status} | ${rate(r.before)} | ${rate(r.after)} |`);
   }
   const broken = result.rules.filter((r) => r.after.counterexample && r.verdict !== 'kept');
   if (broken.length > 0) {

@@ -23,6 +23,8 @@ export interface DiffSettings extends CheckTableSettings {
   readonly roundTolerance: number;
   /** Dense samples per change rule. */
   readonly changeCheckSamples: number;
+  /** Smallest share of the domain a split of the change tree must explain, per leaf. */
+  readonly changeMinShare: number;
 }
 
 /** Where the accepted table's evidence on the old model comes from, and that evidence. */
@@ -95,6 +97,7 @@ export async function diffModels(
     minLeaf: settings.minLeaf,
     roundTolerance: settings.roundTolerance,
     boundaryShare: settings.mine.boundaryShare,
+    minShare: settings.changeMinShare,
   }, hooks);
   const checkedChanges = await checkChangeRules(changeRules, scenario.inputs, before.evaluate, after.evaluate, {
     seed: settings.seed,

@@ -5,13 +5,15 @@ import type { Decision, Evidence, InputSpec, Manifest, Proportion, Rule } from '
  * - `kept`: holds on both (not refuted), and not weaker on the new model (proven stays proven;
  *   sampled or unknown may become proven);
  * - `broken`: held on the old model, refuted on the new one (with a counterexample);
+ * - `degraded`: refuted on both, and the violation rate on the new model is clearly at least
+ *   double the old one (see `clearlyHigherRate`);
  * - `no-longer-proven`: proven on the old model, only sampled or unknown on the new one;
  * - `fixed`: refuted on the old model, holds on the new one;
- * - `still-refuted`: refuted on both.
+ * - `still-refuted`: refuted on both, not clearly more often on the new model.
  */
-export type RegressionVerdict = 'kept' | 'broken' | 'no-longer-proven' | 'fixed' | 'still-refuted';
+export type RegressionVerdict = 'kept' | 'broken' | 'degraded' | 'no-longer-proven' | 'fixed' | 'still-refuted';
 
-export const REGRESSION_VERDICTS: readonly RegressionVerdict[] = ['kept', 'broken', 'no-longer-proven', 'fixed', 'still-refuted'];
+export const REGRESSION_VERDICTS: readonly RegressionVerdict[] = ['kept', 'broken', 'degraded', 'no-longer-proven', 'fixed', 'still-refuted'];
 
 /** One rule of the accepted table with its evidence on both models. */
 export interface RuleRegression {

@@ -6,6 +6,11 @@ import { count, counterexampleText, pct, pctInterval } from './format-figures.js
 
 /** Change rules shown in the terminal (largest share of the domain first; all in diff.md). */
 export const SUMMARY_CHANGE_RULES = 10;
+/** Rules with a verdict other than kept or still-refuted shown in the terminal (all in diff.md). */
+export const SUMMARY_VERDICT_RULES = 12;
+
+/** Order in which verdicts are listed: the worst news first. */
+const LISTED: readonly string[] = ['broken', 'degraded', 'no-longer-proven', 'fixed'];
 
 /** The terminal summary of a diff, ending with the files written and the cautions. */
 export function diffSummaryText(result: DiffResult, gates: readonly GateOutcome[], files: readonly string[]): string {
@@ -13,10 +18,17 @@ export function diffSummaryText(result: DiffResult, gates: readonly GateOutcome[
   const L: string[] = [];
   L.push(`${m.scenario.name}: before ${m.before.sha256.slice(0, 12)}… → after ${m.after.sha256.slice(0, 12)}… (seed ${m.seed})`);
   L.push(`accepted table (${result.rulesSource}): ${REGRESSION_VERDICTS.map((v) => `${result.rules.filter((r) => r.verdict === v).length} ${v}`).join(', ')}`);
-  for (const r of result.rules.filter((x) => x.verdict !== 'kept')) {
-    L.push(`  ${r.rule.id} ${r.verdict} (${r.before.status} → ${r.after.status}): ${formatRule({ ...r.rule, id: '' }, inputs, advisories)}`);
+  // worst news first: by verdict, then by how much the violation rate rose
+  const rise = (r: (typeof result.rules)[number]): number => r.after.violations / r.after.samples - r.before.violations / r.before.samples;
+  const listed = result.rules
+    .filter((x) => LISTED.includes(x.verdict))
+    .sort((a, b) => LISTED.indexOf(a.verdict) - LISTED.indexOf(b.verdict) || rise(b) - rise(a));
+  for (const r of listed.slice(0, SUMMARY_VERDICT_RULES)) {
+    const rates = r.verdict === 'degraded' ? `, violations ${pct(r.before.violations / r.before.samples)} → ${pct(r.after.violations / r.after.samples)}` : '';
+    L.push(`  ${r.rule.id} ${r.verdict} (${r.before.status} → ${r.after.status}${rates}): ${formatRule({ ...r.rule, id: '' }, inputs, advisories)}`);
     if (r.after.counterexample && r.after.status === 'refuted') L.push(`    ${counterexampleText(r.after.counterexample, inputs, advisories)}`);
   }
+  if (listed.length > SUMMARY_VERDICT_RULES) L.push(`  … ${listed.length - SUMMARY_VERDICT_RULES} more (all in diff.md)`);
   L.push(`changed share of the domain: ${pctInterval(result.changed, 3)} on ${count(result.changed.n)} fresh uniform samples`);
   const moves: Array<[number, number, number]> = [];
   result.confusion.forEach((row, a) => row.forEach((c, b) => a !== b && c > 0 && moves.push([a, b, c])));

@@ -14,11 +14,12 @@ export interface GateOutcome {
   readonly reason: string;
 }
 
-const SYNTAX = `expected one of: broken, no-longer-proven, refuted, changed>P% (P a percentage) or changed>F (F a fraction in [0, 1]), none`;
+const SYNTAX = `expected one of: broken, degraded, no-longer-proven, refuted, changed>P% (P a percentage) or changed>F (F a fraction in [0, 1]), none`;
 
 /**
  * Parses `--fail-on` values: each value may hold several gates separated by commas.
  * `broken` trips when a rule that held on the old model is refuted on the new one;
+ * `degraded` when a rule refuted on both is refuted clearly at least twice as often on the new one;
  * `no-longer-proven` when a rule proven on the old model is not proven on the new one;
  * `refuted` when any rule is refuted on the new model (also those already refuted before);
  * `changed>0.5%` (or `changed>0.005`) when the estimated changed share of the domain exceeds it;
@@ -31,7 +32,7 @@ export function parseFailOn(values: readonly string[]): Gate[] {
     for (const raw of value.split(',')) {
       const spec = raw.trim().toLowerCase();
       if (spec === 'none' || spec === '') continue;
-      if (spec === 'broken' || spec === 'no-longer-proven') {
+      if (spec === 'broken' || spec === 'degraded' || spec === 'no-longer-proven') {
         gates.push({ kind: 'verdict', spec, verdict: spec });
         continue;
       }

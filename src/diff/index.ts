@@ -10,10 +10,10 @@ export { checkTable, type CheckTableSettings, type CheckTableOptions } from './c
 export { readRuleSource, ruleSourceKind, type RuleSource, type RuleSourceKind } from './read-rule-source.js';
 
 // parts of a diff
-export { regressionVerdict } from './regression-verdict.js';
+export { regressionVerdict, clearlyHigherRate, DEGRADED_FACTOR } from './regression-verdict.js';
 export { measureChange, type ChangeSample, type MeasureChangeOptions } from './measure-change.js';
 export { changeEvaluator } from './change-evaluator.js';
-export { mineChangeRules, type MineChangeOptions } from './mine-change-rules.js';
+export { mineChangeRules, CHANGE_MIN_SHARE_DEFAULT, type MineChangeOptions } from './mine-change-rules.js';
 export { checkChangeRules, type CheckChangeOptions } from './check-change-rules.js';
 export { changeCapture } from './change-capture.js';
 export { rulesFromRun, type RulesFromRun } from './rules-from-run.js';
@@ -37,6 +37,6 @@ export {
 export { parseFailOn, evaluateGates, type Gate, type GateOutcome } from './fail-on.js';
 export { diffJson, diffJsonText, DIFF_JSON_FORMAT, DIFF_JSON_VERSION, DIFF_CAUTIONS } from './diff-json.js';
 export { diffMdText } from './diff-md.js';
-export { diffSummaryText, SUMMARY_CHANGE_RULES } from './diff-summary.js';
+export { diffSummaryText, SUMMARY_CHANGE_RULES, SUMMARY_VERDICT_RULES } from './diff-summary.js';
 export { writeDiffFolder } from './write-diff-folder.js';
 export { pct, pctInterval, count, pointText, counterexampleText } from './format-figures.js';

@@ -28,7 +28,7 @@ describe('specula diff', () => {
     const io = capture(dir);
     expect(await main(diff(['--out', 'd']), io)).toBe(1);
     expect(io.err()).toBe('');
-    expect(io.out()).toContain('2 kept, 1 broken, 0 no-longer-proven, 0 fixed, 0 still-refuted');
+    expect(io.out()).toContain('2 kept, 1 broken, 0 degraded, 0 no-longer-proven, 0 fixed, 0 still-refuted');
     expect(io.out()).toMatch(/R2 broken \(proven → refuted\): when x1 >= 4\.1 and x2 <= 5\.9 expect B\n {4}at x1 = [\d.]+, x2 = [\d.]+ the network gives A/);
     expect(io.out()).toContain('gate broken: TRIPPED (1 rule broken: R2)');
     expect(io.out().trimEnd().split('\n').at(-1)).toContain('not qualified');

@@ -27,6 +27,7 @@ const SETTINGS: DiffSettings = {
   minLeaf: 5,
   roundTolerance: 0.001,
   changeCheckSamples: 1000,
+  changeMinShare: 0.001,
 };
 
 // Before: thresholds (4, 6); after: (5, 7). Closed form of the changed region, in [0, 10]²:

@@ -28,12 +28,13 @@ function diff(changed: number, rules: RuleRegression[]): DiffResult {
 
 describe('parseFailOn', () => {
   it('reads verdict gates, changed-share gates in percent or as a fraction, commas and repeats', () => {
-    expect(parseFailOn(['broken', 'changed>0.5%', 'no-longer-proven,refuted', 'changed>0.02'])).toEqual([
+    expect(parseFailOn(['broken', 'changed>0.5%', 'no-longer-proven,refuted', 'changed>0.02', 'degraded'])).toEqual([
       { kind: 'verdict', spec: 'broken', verdict: 'broken' },
       { kind: 'changed', spec: 'changed>0.5%', threshold: 0.005 },
       { kind: 'verdict', spec: 'no-longer-proven', verdict: 'no-longer-proven' },
       { kind: 'refuted', spec: 'refuted' },
       { kind: 'changed', spec: 'changed>0.02', threshold: 0.02 },
+      { kind: 'verdict', spec: 'degraded', verdict: 'degraded' },
     ]);
   });
 
@@ -42,7 +43,7 @@ describe('parseFailOn', () => {
   });
 
   it('refuses unknown gates, thresholds past 100 % and none mixed with gates, naming the value', () => {
-    expect(message(['borken'])).toMatchInlineSnapshot(`"--fail-on: expected one of: broken, no-longer-proven, refuted, changed>P% (P a percentage) or changed>F (F a fraction in [0, 1]), none; found 'borken'"`);
+    expect(message(['borken'])).toMatchInlineSnapshot(`"--fail-on: expected one of: broken, degraded, no-longer-proven, refuted, changed>P% (P a percentage) or changed>F (F a fraction in [0, 1]), none; found 'borken'"`);
     expect(message(['changed>150%'])).toContain("found 'changed>150%'");
     expect(message(['changed<1%'])).toContain("found 'changed<1%'");
     expect(message(['none,broken'])).toMatchInlineSnapshot(`"--fail-on: 'none' cannot be combined with other gates, found 'none,broken'"`);

@@ -29,4 +29,20 @@ describe('regressionVerdict', () => {
   it.each(cases)('%s before and %s after is %s', (before, after, verdict) => {
     expect(regressionVerdict(evidence(before), evidence(after))).toBe(verdict);
   });
+
+  const refuted = (violations: number, samples: number): Evidence =>
+    Object.freeze({ ...evidence('refuted'), violations, samples, violationBound: 0 });
+
+  it('calls a rule refuted on both degraded when its violation rate clearly at least doubled', () => {
+    // 10 / 10,000 has the exact 95 % interval [0.048 %, 0.184 %]; 200 / 10,000 has [1.73 %, 2.29 %]
+    // (Clopper-Pearson; values from the project's implementation, itself checked against
+    // published values in test/check/clopper-pearson.test.ts): 1.73 % > 2 × 0.184 %.
+    expect(regressionVerdict(refuted(10, 10_000), refuted(200, 10_000))).toBe('degraded');
+  });
+
+  it('keeps still-refuted when the rate rose but not clearly twofold', () => {
+    // 100 / 10,000: [0.81 %, 1.21 %]; 180 / 10,000: [1.55 %, 2.08 %]; 1.55 % < 2 × 1.21 %
+    expect(regressionVerdict(refuted(100, 10_000), refuted(180, 10_000))).toBe('still-refuted');
+    expect(regressionVerdict(refuted(200, 10_000), refuted(10, 10_000))).toBe('still-refuted');
+  });
 });

@@ -3,7 +3,7 @@ import type { Argv } from 'yargs';
 import { ModelError, UsageError } from '../../errors.js';
 import { loadScenario } from '../../scenario/index.js';
 import { loadModel } from '../../model/index.js';
-import { diffJson, diffModels, diffSummaryText, evaluateGates, parseFailOn, readRuleSource, writeDiffFolder } from '../../diff/index.js';
+import { CHANGE_MIN_SHARE_DEFAULT, diffJson, diffModels, diffSummaryText, evaluateGates, parseFailOn, readRuleSource, writeDiffFolder } from '../../diff/index.js';
 import type { Model, Scenario } from '../../types.js';
 import type { CliIo } from '../io.js';
 import { commonOptions, samplingOptions } from '../options.js';
@@ -25,7 +25,7 @@ export function diffBuilder<T>(y: Argv<T>) {
     .option('after', { type: 'string', demandOption: true, describe: 'the new model file' })
     .option('rules', { type: 'string', describe: 'the accepted table: a rule file, rules.json or rules.csv (default: mined from --before)' })
     .option('out', { type: 'string', describe: 'diff folder (default runs/<scenario>-diff-<timestamp>)' })
-    .option('fail-on', { type: 'string', array: true, default: ['broken'], describe: 'gates that make the exit code 1: broken, no-longer-proven, refuted, changed>P%, none (repeatable or comma-separated)' })
+    .option('fail-on', { type: 'string', array: true, default: ['broken,degraded'], describe: 'gates that make the exit code 1: broken, degraded, no-longer-proven, refuted, changed>P%, none (repeatable or comma-separated)' })
     .option('check-samples', { type: 'number', default: MINE_DEFAULTS.checkSamples, describe: 'dense samples per rule' })
     .option('prove', { type: 'boolean', default: true, describe: 'prove the rules on both models (--no-prove to skip)' })
     .option('prove-boxes', { type: 'number', default: MINE_DEFAULTS.proveBoxes, describe: 'proof budget per rule: pieces of the box bounded' })
@@ -37,6 +37,7 @@ export function diffBuilder<T>(y: Argv<T>) {
     .option('change-samples', { type: 'number', default: DIFF_DEFAULTS.changeSamples, describe: 'fresh uniform samples for the changed share and the confusion matrix' })
     .option('change-budget', { type: 'number', default: DIFF_DEFAULTS.changeBudget, describe: 'samples of both models for learning the change rules' })
     .option('max-change-rules', { type: 'number', default: DIFF_DEFAULTS.maxChangeRules, describe: 'largest number of change rules' })
+    .option('change-min-share', { type: 'number', default: CHANGE_MIN_SHARE_DEFAULT, describe: 'smallest share of the domain a split of the change rules must explain (0..1)' })
     .option('change-check-samples', { type: 'number', default: DIFF_DEFAULTS.changeCheckSamples, describe: 'dense samples per change rule' })
     .example('$0 diff scenario.json --before model.onnx --after model-v2.onnx --rules runs/accepted/rules.json', 'the accepted table on the new model, and where the advisory changed')
     .example('$0 diff scenario.json --before a.onnx --after b.onnx --fail-on broken --fail-on "changed>0.5%"', 'a CI gate: exit 1 when a rule broke or more than 0.5 % of the domain changed');
@@ -71,7 +72,7 @@ async function loadSide(scenario: Scenario, side: 'before' | 'after', path: stri
 /**
  * `specula diff SCENARIO --before A.onnx --after B.onnx`: the accepted table re-checked on the new
  * model, the changed share with its interval, change rules; writes diff.json and diff.md.
- * Exit 1 when a gate trips (default: a rule broke).
+ * Exit 1 when a gate trips (default: a rule broke, or a refuted rule got clearly worse).
  */
 export async function runDiff(args: DiffArgs, io: CliIo): Promise<number> {
   const confidence = args.confidence;
@@ -108,7 +109,11 @@ export async function runDiff(args: DiffArgs, io: CliIo): Promise<number> {
     minLeaf: positiveInt('min-leaf', args['min-leaf']),
     roundTolerance,
     changeCheckSamples: positiveInt('change-check-samples', args['change-check-samples']),
+    changeMinShare: args['change-min-share'],
   };
+  if (!(settings.changeMinShare >= 0 && settings.changeMinShare < 1)) {
+    throw new UsageError(`--change-min-share: expected a number in [0, 1), found ${settings.changeMinShare}`);
+  }
   const threads = positiveInt('threads', args.threads);
   const scenario = loadScenario(resolve(io.cwd, String(args.scenario)));
   const source = args.rules === undefined ? undefined : readRuleSource(resolve(io.cwd, args.rules), scenario);
