@@ -7,6 +7,8 @@ export { ACTIVATION_GUARD } from './interval-kernels.js';
 
 /** Blocks of LANES boxes propagated together by intervalBounds (work arrays of 4 × 128 × width doubles). */
 const CHUNK_BLOCKS = 16;
+/** Smallest batch for which intervalBounds uses the WebAssembly kernels by default. */
+const WASM_MIN_BOXES = 16;
 
 /**
  * Interval bound propagation: interval arithmetic (R. E. Moore, Interval Analysis,
@@ -67,7 +69,9 @@ function propagateBlocks(net: Network, ws: BlockWorkspace, blocks: number, strid
  * @param n number of boxes
  * @param lowerOut n × outputSize: receives lower bounds (−Infinity where overflow is possible)
  * @param upperOut optional n × outputSize: receives upper bounds (+Infinity likewise)
- * @param options.wasm false forces the TypeScript kernel (same results, slower)
+ * @param options.wasm true or false forces the WebAssembly or TypeScript kernels (same results);
+ *   by default WebAssembly is used from WASM_MIN_BOXES boxes on, below which setting up its
+ *   memory costs more than it saves
  */
 export function intervalBounds(net: Network, lo: Float64Array, hi: Float64Array, n: number, lowerOut: Float64Array, upperOut?: Float64Array, options: { readonly wasm?: boolean } = {}): void {
   const stride = maxWidth(net);
@@ -75,7 +79,7 @@ export function intervalBounds(net: Network, lo: Float64Array, hi: Float64Array,
   const k = net.outputSize;
   // chunks small enough that the four work arrays stay in cache across the layers
   const blocks = CHUNK_BLOCKS;
-  const ws = blockWorkspace(net, blocks, stride, options);
+  const ws = blockWorkspace(net, blocks, stride, { wasm: options.wasm ?? n >= WASM_MIN_BOXES });
   const over = new Uint8Array(blocks * LANES);
   for (let first = 0; first < n; first += blocks * LANES) {
     const m = Math.min(blocks * LANES, n - first);
