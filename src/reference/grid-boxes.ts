@@ -10,12 +10,13 @@ export interface GridBox {
  * Groups the marked points of a grid into boxes of grid indices, each holding only marked
  * points, that together cover every marked point (boxes may overlap). Greedy: in grid order,
  * each marked point not yet covered seeds a box, which grows on each axis in turn, first upward
- * and then downward, one slab at a time while the whole new slab is marked; then its points are
- * covered. This is the usual greedy cover of a binary grid by rectangles (finding the fewest is
+ * and then downward, one slab at a time while the whole new slab is marked; this is tried for
+ * each of the d rotations of the axis order, and the box covering the most not-yet-covered
+ * points (then the most points) is kept and its points covered. This is the usual greedy cover of a binary grid by rectangles (finding the fewest is
  * NP-hard; the greedy result is not minimal but every box is exact).
  * @param marked one flag per grid point in grid order (last axis fastest); not changed
  * @param shape number of values per axis
- * Cost: O(boxes · box size · d) on top of one pass over the grid.
+ * Cost: O(boxes · d · box size · d) on top of one pass over the grid.
  */
 export function gridBoxes(marked: Uint8Array, shape: readonly number[]): GridBox[] {
   const d = shape.length;
@@ -27,18 +28,28 @@ export function gridBoxes(marked: Uint8Array, shape: readonly number[]): GridBox
   for (let p = 0; p < marked.length; p++) {
     if (marked[p] !== 1 || covered[p] === 1) continue;
     for (let f = 0; f < d; f++) idx[f] = Math.floor(p / stride[f]!) % shape[f]!;
-    const lo = [...idx];
-    const hi = [...idx];
-    for (let f = 0; f < d; f++) {
-      while (hi[f]! + 1 < shape[f]! && slabMarked(marked, lo, hi, f, hi[f]! + 1, stride)) hi[f]!++;
-      while (lo[f]! > 0 && slabMarked(marked, lo, hi, f, lo[f]! - 1, stride)) lo[f]!--;
+    // grow in each of the d rotations of the axis order; keep the box adding most new points
+    let best: { lo: number[]; hi: number[]; fresh: number; points: number } | undefined;
+    for (let r = 0; r < d; r++) {
+      const lo = [...idx];
+      const hi = [...idx];
+      for (let s = 0; s < d; s++) {
+        const f = (r + s) % d;
+        while (hi[f]! + 1 < shape[f]! && slabMarked(marked, lo, hi, f, hi[f]! + 1, stride)) hi[f]!++;
+        while (lo[f]! > 0 && slabMarked(marked, lo, hi, f, lo[f]! - 1, stride)) lo[f]!--;
+      }
+      let fresh = 0;
+      let points = 0;
+      forEachIn(lo, hi, stride, (q) => {
+        points++;
+        if (covered[q] === 0) fresh++;
+      });
+      if (!best || fresh > best.fresh || (fresh === best.fresh && points > best.points)) best = { lo, hi, fresh, points };
     }
-    let points = 0;
-    forEachIn(lo, hi, stride, (q) => {
+    forEachIn(best!.lo, best!.hi, stride, (q) => {
       covered[q] = 1;
-      points++;
     });
-    boxes.push({ lo, hi, points });
+    boxes.push({ lo: best!.lo, hi: best!.hi, points: best!.points });
   }
   return boxes;
 }
