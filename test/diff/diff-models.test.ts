@@ -105,10 +105,15 @@ describe('diffModels', () => {
     }
     expect(wrong / (m * m)).toBeLessThanOrEqual(RECOVERY_TOLERANCE);
     expect(result.changeRules.length).toBeGreaterThan(0);
-    // every change rule was checked on its own dense samples and its box is mostly changed
+    // Each change rule was checked on its own dense samples. With boxes within the recovery
+    // tolerance of the truth, at most RECOVERY_TOLERANCE / 15 % ≈ 3 % of the changed region (and
+    // of the rules' volume) can be missed or wrongly included, so recall and precision on the
+    // uniform sample must be above 96 %, less sampling noise (4,000 samples, ~600 changed: a few
+    // tenths of a percent); 0.95 leaves room for that noise.
+    const CAPTURE_MIN = 0.95;
     for (const c of result.changeRules) expect(c.changed.n).toBe(1000);
-    expect(result.capture.recall.value).toBeGreaterThan(0.99);
-    expect(result.capture.precision.value).toBeGreaterThan(0.99);
+    expect(result.capture.recall.value).toBeGreaterThan(CAPTURE_MIN);
+    expect(result.capture.precision.value).toBeGreaterThan(CAPTURE_MIN);
   });
 
   it('classifies the accepted rules by their evidence on both models', async () => {
