@@ -16,6 +16,8 @@ export interface CheckTableSettings {
   readonly proveSeconds: number;
   /** Worker threads for proving; default 1 (in this thread). */
   readonly jobs?: number;
+  /** Follow refuted and unknown rules by proven sub-rules (the prover's repair); default false. */
+  readonly repair?: boolean;
 }
 
 export interface CheckTableOptions {
@@ -31,8 +33,9 @@ export interface CheckTableOptions {
  * Checks given rules against one model: dense samples in every box with the exact one-sided
  * Clopper–Pearson bound (`checkRules`), then, unless turned off, a proof of every rule by bound
  * propagation and branch and bound (`settleTable`: proven, refuted with an onnxruntime-confirmed
- * counterexample, or unknown with the proven share). Where the prover cannot read the graph,
- * the rules keep their sampled status and the table carries a note saying why.
+ * counterexample, or unknown with the proven share; with `repair`, refuted and unknown rules are
+ * followed by proven sub-rules). Where the prover cannot read the graph, the rules keep their
+ * sampled status and the table carries a note saying why.
  * @returns a rule table without fidelity figures (given rules need not cover the domain)
  */
 export async function checkTable(
@@ -43,8 +46,15 @@ export async function checkTable(
   options: CheckTableOptions,
   hooks: MineHooks = {},
 ): Promise<RuleTable> {
+  const repair = settings.repair ?? false;
+  // settleTable treats rules of origin 'repaired' as sub-rules of its own making: it drops them
+  // and, with repair on, derives new ones from their refuted parents on this model. With repair
+  // off, given sub-rules are checked like any other rule: they go in as 'mined' and get their
+  // origin back afterwards.
+  const relabelled = new Map(rules.filter((r) => r.origin.kind === 'repaired').map((r) => [r.id, r.origin]));
+  const given = repair ? rules.filter((r) => !relabelled.has(r.id)) : rules.map((r) => (relabelled.has(r.id) ? { ...r, origin: { kind: 'mined' as const } } : r));
   hooks.onStage?.('checking');
-  const checked = await checkRules(rules, scenario.inputs, model.evaluate, {
+  const checked = await checkRules(given, scenario.inputs, model.evaluate, {
     seed: settings.seed,
     samplesPerRule: settings.checkSamples,
     confidence: settings.confidence,
@@ -64,7 +74,7 @@ export async function checkTable(
       model: { path: model.path, sha256: model.sha256 },
       seed: settings.seed,
       settings: { ...recorded, rules: options.source },
-      counts: { rules: rules.length },
+      counts: { rules: given.length },
     },
     inputs: scenario.inputs,
     advisories: scenario.advisories,
@@ -72,6 +82,23 @@ export async function checkTable(
     rules: checked,
     ...(options.notes && options.notes.length > 0 ? { notes: [...options.notes] } : {}),
   };
-  const proveSettings = { proveBoxes: settings.proveBoxes, proveSeconds: settings.proveSeconds, jobs: settings.jobs ?? 1 };
-  return settings.prove ? settleTable(table, scenario, model, proveSettings, hooks) : table;
+  if (!settings.prove) return table;
+  const proveSettings = {
+    proveBoxes: settings.proveBoxes,
+    proveSeconds: settings.proveSeconds,
+    jobs: settings.jobs ?? 1,
+    repair,
+    seed: settings.seed,
+    checkSamples: settings.checkSamples,
+    confidence: settings.confidence,
+  };
+  const settled = await settleTable(table, scenario, model, proveSettings, hooks);
+  if (repair || relabelled.size === 0) return settled;
+  return {
+    ...settled,
+    rules: settled.rules.map((c) => {
+      const origin = relabelled.get(c.rule.id);
+      return origin === undefined ? c : { ...c, rule: { ...c.rule, origin } };
+    }),
+  };
 }

@@ -27,6 +27,7 @@ export function checkBuilder<T>(y: Argv<T>) {
     .option('prove', { type: 'boolean', default: true, describe: 'prove the rules by bound propagation (--no-prove to skip)' })
     .option('prove-boxes', { type: 'number', default: MINE_DEFAULTS.proveBoxes, describe: 'proof budget per rule: pieces of the box bounded' })
     .option('prove-seconds', { type: 'number', default: MINE_DEFAULTS.proveSeconds, describe: 'proof budget per rule: seconds (safety net)' })
+    .option('repair', { type: 'boolean', default: false, describe: 'follow refuted rules by proven readable sub-rules (as mine does)' })
     .option('report', { type: 'boolean', default: true, describe: 'write report.html with slice plots (--no-report to skip)' })
     .option('reference', { type: 'string', describe: 'reference lookup table (CSV: one column per input, one advisory column) to compare at its grid points' })
     .option('min-agreement', { type: 'number', default: 1, describe: 'with --reference: exit 1 when the share of agreeing grid points is below this (0..1)' })
@@ -83,6 +84,7 @@ export async function runCheck(args: CheckArgs, io: CliIo): Promise<number> {
     proveBoxes: positiveInt('prove-boxes', args['prove-boxes']),
     proveSeconds: args['prove-seconds'],
     jobs: positiveInt('jobs', args.jobs),
+    repair: args.repair,
   };
   if (!(Number.isFinite(settings.proveSeconds) && settings.proveSeconds > 0)) throw new UsageError(`--prove-seconds: expected a positive number, found ${settings.proveSeconds}`);
   const scenario = loadScenario(resolve(io.cwd, String(args.scenario)));

@@ -25,7 +25,7 @@ export function diffBuilder<T>(y: Argv<T>) {
     .option('after', { type: 'string', demandOption: true, describe: 'the new model file' })
     .option('rules', { type: 'string', describe: 'the accepted table: a rule file, rules.json or rules.csv (default: mined from --before)' })
     .option('out', { type: 'string', describe: 'diff folder (default runs/<scenario>-diff-<timestamp>)' })
-    .option('fail-on', { type: 'string', array: true, default: ['broken,degraded'], describe: 'gates that make the exit code 1: broken, degraded, no-longer-proven, refuted, changed>P%, none (repeatable or comma-separated)' })
+    .option('fail-on', { type: 'string', array: true, nargs: 1, default: ['broken,degraded'], describe: 'gates that make the exit code 1: broken, degraded, no-longer-proven, refuted, changed>P%, none (repeatable or comma-separated)' })
     .option('check-samples', { type: 'number', default: MINE_DEFAULTS.checkSamples, describe: 'dense samples per rule' })
     .option('prove', { type: 'boolean', default: true, describe: 'prove the rules on both models (--no-prove to skip)' })
     .option('prove-boxes', { type: 'number', default: MINE_DEFAULTS.proveBoxes, describe: 'proof budget per rule: pieces of the box bounded' })
@@ -92,17 +92,20 @@ export async function runDiff(args: DiffArgs, io: CliIo): Promise<number> {
     proveSeconds,
     jobs: positiveInt('jobs', args.jobs),
   };
+  // the accepted table is mined without repair: sub-rules made on one model are not compared
+  const mineSettings = {
+    ...check,
+    budget: positiveInt('samples', args.samples),
+    maxRules: positiveInt('max-rules', args['max-rules']),
+    minLeaf: positiveInt('min-leaf', args['min-leaf']),
+    roundTolerance,
+    boundaryShare: MINE_DEFAULTS.boundaryShare,
+    fidelitySamples: MINE_DEFAULTS.fidelitySamples,
+    repair: false,
+  };
   const settings = {
     ...check,
-    mine: {
-      ...check,
-      budget: positiveInt('samples', args.samples),
-      maxRules: positiveInt('max-rules', args['max-rules']),
-      minLeaf: positiveInt('min-leaf', args['min-leaf']),
-      roundTolerance,
-      boundaryShare: MINE_DEFAULTS.boundaryShare,
-      fidelitySamples: MINE_DEFAULTS.fidelitySamples,
-    },
+    mine: mineSettings,
     changeSamples: positiveInt('change-samples', args['change-samples']),
     changeBudget: positiveInt('change-budget', args['change-budget']),
     maxChangeRules: positiveInt('max-change-rules', args['max-change-rules']),
