@@ -1,0 +1,74 @@
+import type { Decision, Normalization } from '../types.js';
+import type { Box, ConfirmFn, Network, ProveResult } from '../prove/index.js';
+import { proveBox } from '../prove/index.js';
+import type { Rng } from '../sampling/index.js';
+import { type GuidePoints, PointKind, appendPointsInPlace } from './guide-points.js';
+import type { ReadableCutLimits } from './readable-cut.js';
+
+/** What the repair is doing, for progress displays and measurements (see RepairOptions.onEvent). */
+export type RepairEvent =
+  | { readonly kind: 'plan'; readonly box: Box; readonly share: number; readonly strikes: number; readonly slabs: number; readonly main?: Box }
+  | { readonly kind: 'search'; readonly box: Box; readonly violations: number }
+  | { readonly kind: 'proof'; readonly box: Box; readonly status: ProveResult['status']; readonly pieces: number; readonly provenVolumeFraction: number }
+  | { readonly kind: 'drop'; readonly box: Box; readonly share: number };
+
+/** What one repair shares between its steps: the network, budgets, clock and the points seen. */
+export interface RepairContext {
+  readonly net: Network;
+  readonly ruleBox: Box;
+  readonly allowed: readonly number[];
+  readonly allowedSet: ReadonlySet<number>;
+  readonly decision: Decision;
+  readonly normalize?: Normalization;
+  readonly confirm: ConfirmFn;
+  readonly now: () => number;
+  /** Clock reading (ms) after which no new proof starts. */
+  readonly deadline: number;
+  readonly maxBoxesPerProof: number;
+  readonly limits: readonly ReadableCutLimits[];
+  readonly rng: Rng;
+  readonly points: GuidePoints;
+  readonly onEvent?: (event: RepairEvent) => void;
+  /** Pieces bounded by every proof so far. */
+  pieces: number;
+  /** Proofs run so far (all outcomes). */
+  attempts: number;
+}
+
+/** Milliseconds left before the deadline (0 when past it). */
+export function timeLeft(ctx: RepairContext): number {
+  return Math.max(0, ctx.deadline - ctx.now());
+}
+
+/**
+ * Labels m points (m × d, scenario units) with the runtime through `confirm` and adds them to the
+ * context's points: a violation where the runtime's advisory is not allowed, else `goodKind`.
+ * @returns how many violations were found
+ */
+export async function addLabelledPoints(ctx: RepairContext, x: Float64Array, m: number, goodKind: number): Promise<number> {
+  if (m === 0) return 0;
+  const advisory = await ctx.confirm(x, m);
+  const kind = new Uint8Array(m);
+  let violations = 0;
+  for (let r = 0; r < m; r++) {
+    const bad = !ctx.allowedSet.has(advisory[r]!);
+    kind[r] = bad ? PointKind.violation : goodKind;
+    if (bad) violations++;
+  }
+  appendPointsInPlace(ctx.points, x, kind, m);
+  return violations;
+}
+
+/** Runs proveBox on exactly `box` with the per-proof budget and the time left; counts its pieces. */
+export async function proveIn(ctx: RepairContext, box: Box): Promise<ProveResult> {
+  const result = await proveBox(ctx.net, box, ctx.allowed, ctx.decision, {
+    maxBoxes: ctx.maxBoxesPerProof,
+    maxSeconds: timeLeft(ctx) / 1000,
+    now: ctx.now,
+    confirm: ctx.confirm,
+    ...(ctx.normalize !== undefined ? { normalize: ctx.normalize } : {}),
+  });
+  ctx.pieces += result.pieces;
+  ctx.attempts++;
+  return result;
+}

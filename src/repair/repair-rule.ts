@@ -1,0 +1,155 @@
+import { ToolError } from '../errors.js';
+import type { Decision, InputSpec, Normalization, Rule } from '../types.js';
+import type { ConfirmFn, Network, ProveResult } from '../prove/index.js';
+import { READABLE_STEP_MIN_FRACTION, readableSteps, sortRules } from '../rules/index.js';
+import { createRng } from '../sampling/index.js';
+import { boxShare } from './box-share.js';
+import { PointKind, appendPointsInPlace, emptyGuidePoints, pointInBox } from './guide-points.js';
+import { mergeProven } from './merge-proven.js';
+import { peelAndProve } from './peel-and-prove.js';
+import type { RepairContext, RepairEvent } from './repair-context.js';
+import { checkRepairInput } from './check-repair-input.js';
+
+/** Defaults of the repair options; choices of this project, measured on the demo (docs/repair.md). */
+export const REPAIR_DEFAULTS = {
+  maxSubRules: 8,
+  minVolumeShare: 0.02,
+  /** Uniform points drawn per region before planning (as many again on its surface). */
+  screenPoints: 1024,
+  /** Least gap between a point cut off and the new face, as a share of the rule box's width. */
+  clearanceShare: 0.005,
+  /** Greatest gap, as a share of the rule box's width: the room a rounder cut value may take. */
+  allowanceShare: 0.03,
+  seed: 1,
+} as const;
+
+/** Labelled samples (e.g. the checker's) that show where a rule's box is violated. */
+export interface RepairSamples {
+  /** n × d, row-major, float64, scenario units. */
+  readonly x: Float64Array;
+  readonly n: number;
+  readonly d: number;
+  /** The network's advisory per sample. */
+  readonly advisory: Int32Array;
+}
+
+export interface RepairScenario {
+  readonly inputs: readonly InputSpec[];
+  readonly advisories: readonly string[];
+  readonly decision: Decision;
+  readonly normalize?: Normalization;
+}
+
+export interface RepairOptions {
+  /** The runtime's advisory for points in scenario units (labels samples; confirms refutations). */
+  readonly confirm: ConfirmFn;
+  /** Clock in milliseconds (e.g. performance.now); the only clock read. */
+  readonly now: () => number;
+  /** Time budget of the whole repair; no proof starts after it. */
+  readonly maxSeconds: number;
+  /** Piece budget of each proveBox call. */
+  readonly maxBoxesPerProof: number;
+  readonly maxSubRules?: number;
+  /** Share of the rule's box below which a region is dropped rather than repaired. */
+  readonly minVolumeShare?: number;
+  /** Labelled samples; those inside the rule's box guide the first cuts. */
+  readonly samples?: RepairSamples;
+  readonly screenPoints?: number;
+  readonly clearanceShare?: number;
+  readonly allowanceShare?: number;
+  /** Seed of the screening points (runs are reproducible given the same proof outcomes). */
+  readonly seed?: number;
+  /** Called at each step (plan, search, proof, drop); must not throw. */
+  readonly onEvent?: (event: RepairEvent) => void;
+}
+
+export interface RepairResult {
+  /** Proven sub-rules: disjoint boxes inside the rule's box, same allowed set, sortRules order. */
+  readonly subRules: Rule[];
+  /** Share of the rule's box covered by the sub-rules (over inputs where it has width). */
+  readonly provenVolumeFraction: number;
+  /** Pieces bounded by all proofs, failed ones included. */
+  readonly pieces: number;
+  readonly seconds: number;
+  /** proofs[k] is the proveBox result that proved subRules[k] on exactly its box. */
+  readonly proofs: ProveResult[];
+  /** proveBox calls made, failed ones included. */
+  readonly attempts: number;
+}
+
+/**
+ * Repairs a refuted rule: finds few readable sub-boxes of its box, each proven by proveBox on
+ * exactly that box for the same allowed advisories, covering as much of the box as the budget
+ * allows (`peelAndProve`, then `mergeProven`). Sub-rules get ids `<parent>.1`, `<parent>.2`, … in
+ * sortRules order and origin `{ kind: 'repaired', from: parent.id }`. Sound by construction:
+ * nothing is returned that proveBox did not prove; samples only choose the cuts.
+ *
+ * @param net the network as read from the ONNX file (readOnnxNetwork)
+ * @param rule the rule to repair (not changed)
+ * @throws ToolError `REPAIR_RULE` when the rule does not fit the scenario or network,
+ *   `REPAIR_OPTION` for a budget or share out of range
+ */
+export async function repairRule(net: Network, rule: Rule, scenario: RepairScenario, options: RepairOptions): Promise<RepairResult> {
+  checkRepairInput(net, rule, scenario, options);
+  const start = options.now();
+  const d = rule.box.length;
+  const clearanceShare = options.clearanceShare ?? REPAIR_DEFAULTS.clearanceShare;
+  const allowanceShare = options.allowanceShare ?? REPAIR_DEFAULTS.allowanceShare;
+  const limits = rule.box.map(([lo, hi], i) => {
+    const range = scenario.inputs[i]!.max - scenario.inputs[i]!.min;
+    const width = hi > lo ? hi - lo : range;
+    const finest = range * READABLE_STEP_MIN_FRACTION;
+    const steps = readableSteps(Math.max(range, hi - lo), finest);
+    return { clearance: clearanceShare * width, allowance: allowanceShare * width, finest, steps };
+  });
+  const ctx: RepairContext = {
+    net,
+    ruleBox: rule.box,
+    allowed: rule.allowed,
+    allowedSet: new Set(rule.allowed),
+    decision: scenario.decision,
+    ...(scenario.normalize !== undefined ? { normalize: scenario.normalize } : {}),
+    confirm: options.confirm,
+    now: options.now,
+    deadline: start + options.maxSeconds * 1000,
+    maxBoxesPerProof: options.maxBoxesPerProof,
+    limits,
+    rng: createRng(options.seed ?? REPAIR_DEFAULTS.seed),
+    points: emptyGuidePoints(d),
+    ...(options.onEvent !== undefined ? { onEvent: options.onEvent } : {}),
+    pieces: 0,
+    attempts: 0,
+  };
+  const given = options.samples;
+  if (given !== undefined) {
+    for (let r = 0; r < given.n; r++) {
+      if (!pointInBox(given.x, r, d, rule.box)) continue;
+      const kind = ctx.allowedSet.has(given.advisory[r]!) ? PointKind.other : PointKind.violation;
+      appendPointsInPlace(ctx.points, given.x.subarray(r * d, r * d + d), [kind], 1);
+    }
+  }
+  const peeled = await peelAndProve(ctx, {
+    screenPoints: options.screenPoints ?? REPAIR_DEFAULTS.screenPoints,
+    maxSubRules: options.maxSubRules ?? REPAIR_DEFAULTS.maxSubRules,
+    minVolumeShare: options.minVolumeShare ?? REPAIR_DEFAULTS.minVolumeShare,
+  });
+  const parts = await mergeProven(ctx, peeled);
+  const origin = { kind: 'repaired', from: rule.id } as const;
+  const proofOf = new Map(parts.map((p) => [p.box, p.proof]));
+  const ordered = sortRules(parts.map((p) => ({ id: '', box: p.box, allowed: rule.allowed, origin })));
+  const proofs = ordered.map((r) => proofOf.get(r.box)!);
+  // soundness guard: every sub-rule carries the proof of exactly its own box
+  if (proofs.some((p) => p === undefined || p.status !== 'proven')) {
+    throw new ToolError('REPAIR_INTERNAL', `repair of ${rule.id}: a sub-rule lacks its proof`);
+  }
+  let provenVolumeFraction = 0;
+  for (const p of parts) provenVolumeFraction += boxShare(p.box, rule.box);
+  return {
+    subRules: ordered.map((r, k) => ({ ...r, id: `${rule.id}.${k + 1}` })),
+    provenVolumeFraction: Math.min(1, provenVolumeFraction),
+    pieces: ctx.pieces,
+    seconds: (options.now() - start) / 1000,
+    proofs,
+    attempts: ctx.attempts,
+  };
+}
