@@ -18,6 +18,10 @@ export interface RoundGrid {
   readonly scale: Float64Array;
   /** Seeded shift per axis, in cells, in [0, 1). */
   readonly offset: Float64Array;
+  /** scale·g per axis: x·cellScale + cellShift is the position in cells, shift included. */
+  readonly cellScale: Float64Array;
+  /** offset − lo·scale·g per axis. */
+  readonly cellShift: Float64Array;
 }
 
 /**
@@ -41,13 +45,17 @@ export function gridForRound(box: Box, n: number, perCell: number, rng: Rng): Ro
   const width = new Float64Array(d);
   const scale = new Float64Array(d);
   const offset = new Float64Array(d);
+  const cellScale = new Float64Array(d);
+  const cellShift = new Float64Array(d);
   for (let j = 0; j < d; j++) {
     lo[j] = box[j]![0];
     width[j] = box[j]![1] - box[j]![0];
     scale[j] = width[j]! > 0 ? 1 / width[j]! : 0;
     offset[j] = rng();
+    cellScale[j] = scale[j]! * g;
+    cellShift[j] = offset[j]! - lo[j]! * cellScale[j]!;
   }
-  return { perAxis: g, cells: (g + 1) ** d, lo, width, scale, offset };
+  return { perAxis: g, cells: (g + 1) ** d, lo, width, scale, offset, cellScale, cellShift };
 }
 
 /** Coordinate j of row i of x (d values a row), normalised to [0, 1] (0 on a zero-width axis). */
@@ -55,10 +63,19 @@ export function normalisedAt(x: Float64Array, i: number, j: number, d: number, g
   return Math.min(1, Math.max(0, (x[i * d + j]! - grid.lo[j]!) * grid.scale[j]!));
 }
 
-/** The cell of row i of x, in [0, grid.cells). */
+/**
+ * The cell of row i of x, in [0, grid.cells): per axis ⌊x·cellScale + cellShift⌋ (the position
+ * in cells, shift included) clamped to [0, g], combined in base g + 1. Points outside the box
+ * fall into its border cells.
+ */
 export function cellIndex(x: Float64Array, i: number, d: number, grid: RoundGrid): number {
   const g = grid.perAxis;
+  const { cellScale, cellShift } = grid;
   let cell = 0;
-  for (let j = 0; j < d; j++) cell = cell * (g + 1) + Math.floor(normalisedAt(x, i, j, d, grid) * g + grid.offset[j]!);
+  for (let j = 0, at = i * d; j < d; j++, at++) {
+    // clamped to [0, g] before the truncation, which is then the floor (and cannot wrap)
+    const v = x[at]! * cellScale[j]! + cellShift[j]!;
+    cell = cell * (g + 1) + (v > 0 ? (v < g ? v | 0 : g) : 0);
+  }
   return cell;
 }

@@ -1,5 +1,5 @@
 import { checkBox, checkCount, checkRoom, type Box } from './check-box.js';
-import type { Rng } from './rng.js';
+import { fillFromRng, type Rng } from './rng.js';
 
 /**
  * The number of cells per axis of a full grid with at most `budget` cells in d dimensions:
@@ -56,10 +56,10 @@ export function gridInPlace(box: Box, budget: number, rng: Rng, out: Float64Arra
     lo[j] = box[j]![0];
     step[j] = (box[j]![1] - box[j]![0]) / c;
   }
-  for (let i = 0; i < n; i++) {
-    const at = (row + i) * d;
-    for (let j = 0; j < d; j++) out[at + j] = lo[j]! + (cell[j]! + rng()) * step[j]!;
-    // odometer increment, last axis fastest
+  // the jitter first (row by row, as single draws would come), then each value moved into its cell
+  fillFromRng(rng, out, row * d, n * d);
+  for (let i = 0, at = row * d; i < n; i++) {
+    for (let j = 0; j < d; j++, at++) out[at] = lo[j]! + (cell[j]! + out[at]!) * step[j]!;
     for (let j = d - 1; j >= 0; j--) {
       if (++cell[j]! < c) break;
       cell[j] = 0;

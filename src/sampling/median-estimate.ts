@@ -1,3 +1,5 @@
+import { medianInPlace } from './median-in-place.js';
+
 /** Values read to estimate the median: its sampling error is ~1/√(4·4096) ≈ 0.8 % in rank. */
 export const MEDIAN_SAMPLE = 4096;
 
@@ -13,6 +15,5 @@ export function medianEstimate(values: Float32Array, n: number): number {
   const m = Math.min(n, MEDIAN_SAMPLE);
   const picked = new Float32Array(m);
   for (let t = 0; t < m; t++) picked[t] = values[Math.floor((t * n) / m)]!;
-  picked.sort();
-  return m % 2 === 1 ? picked[(m - 1) >> 1]! : 0.5 * (picked[m / 2 - 1]! + picked[m / 2]!);
+  return medianInPlace(picked, m);
 }

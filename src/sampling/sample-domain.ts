@@ -3,7 +3,8 @@ import type { Evaluator, InputSpec, SampleSet } from '../types.js';
 import type { Box } from './check-box.js';
 import { gridCellsPerAxis, gridInPlace } from './grid.js';
 import { refineInPlace } from './refine.js';
-import { createRng } from './rng.js';
+import type { ActiveSamples } from './refine-passes.js';
+import { createRng32 } from './rng.js';
 import { SOBOL_MAX_DIMENSION, sobolInPlace } from './sobol.js';
 
 /** Share of the budget spent near boundaries by default; the rest covers the box evenly. */
@@ -36,8 +37,10 @@ function fail(message: string): never {
  * Samples the network over the input box: a jittered grid and digitally shifted Sobol points
  * for the first (1 − boundaryShare) of the budget, then REFINE_ROUNDS rounds of adaptive
  * refinement near the boundaries between advisories (see refine.ts) for the rest. Points are
- * in scenario units (the model normalises). Deterministic: one seeded generator drives every
- * choice in a fixed order, and batches are evaluated in order.
+ * in scenario units (the model normalises). Deterministic: one seeded generator (`createRng32`:
+ * 32-bit draws, scaled into cells and boxes) drives every choice in a fixed order, and batches
+ * are evaluated in order. Nothing of the sample set's size is allocated besides the result:
+ * fresh memory is slow to fault in on small virtual machines (docs/sampling.md).
  * @param inputs the scenario's inputs (their [min, max] ranges form the box; not changed)
  * @param evaluate the controller, called with at most batchSize rows at a time
  * @param options seed, budget, boundary share, batch size, progress callback
@@ -63,7 +66,7 @@ export async function sampleDomain(inputs: readonly InputSpec[], evaluate: Evalu
     }
   });
   const box: Box = inputs.map((input) => [input.min, input.max] as const);
-  const rng = createRng(seed);
+  const rng = createRng32(seed);
   const x = new Float64Array(budget * d);
   const advisory = new Int32Array(budget);
   const margin = new Float32Array(budget);
@@ -92,17 +95,33 @@ export async function sampleDomain(inputs: readonly InputSpec[], evaluate: Evalu
   const gridCount = gridInPlace(box, gridBudget, rng, x, 0);
   const sobolCount = initial - gridCount;
   sobolInPlace(sobolCount, d, rng, x, gridCount);
-  const lo = Float64Array.from(inputs, (input) => input.min);
-  const width = Float64Array.from(inputs, (input) => input.max - input.min);
-  for (let i = gridCount; i < initial; i++) {
-    for (let j = 0; j < d; j++) x[i * d + j] = lo[j]! + x[i * d + j]! * width[j]!;
-  }
+  toBoxInPlace(box, x, gridCount, initial);
   await evaluateNew(initial);
+  // each round looks at the candidates (samples in mixed cells, near-ties) and new points of the
+  // round before (all samples at first); two work spaces take turns: one holds the candidates
+  // being read, the other the new ones
+  let active: ActiveSamples = { candidates: new Int32Array(0), from: 0, to: filled };
+  const spaces = [new Int32Array(initial), new Int32Array(0)];
   for (let round = 0; round < REFINE_ROUNDS; round++) {
     const count = Math.floor((refineTotal * (round + 1)) / REFINE_ROUNDS) - Math.floor((refineTotal * round) / REFINE_ROUNDS);
     if (count === 0) continue;
-    refineInPlace(box, { x, advisory, margin, n: filled }, count, round, rng, x, filled);
+    const need = active.candidates.length + active.to - active.from;
+    if (spaces[round % 2]!.length < need) spaces[round % 2] = new Int32Array(need);
+    const from = filled;
+    const candidates = refineInPlace(box, { x, advisory, margin, n: filled }, count, round, rng, x, filled, { active, scratch: spaces[round % 2]! });
     await evaluateNew(count);
+    active = { candidates, from, to: filled };
   }
   return { d, n: budget, x, advisory, margin, seed };
+}
+
+/** Maps rows [from, to) of x from the unit cube to the box, in place (Sobol points arrive in [0, 1)^d). */
+function toBoxInPlace(box: Box, x: Float64Array, from: number, to: number): void {
+  const d = box.length;
+  const lo = Float64Array.from(box, (b) => b[0]);
+  const width = Float64Array.from(box, (b) => b[1] - b[0]);
+  for (let i = from * d, end = to * d, j = 0; i < end; i++) {
+    x[i] = lo[j]! + x[i]! * width[j]!;
+    if (++j === d) j = 0;
+  }
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { createRng, seedState, xoshiro128StarStar } from '../../src/sampling/rng.js';
+import { createRng, createRng32, fillFromRng, seedState, uniform32Rng, xoshiro128StarStar } from '../../src/sampling/rng.js';
 
 /*
  * Check values: the reference C code of xoshiro128** 1.1 and splitmix64 (Blackman & Vigna,
@@ -92,5 +92,66 @@ describe('createRng', () => {
     let same = 0;
     for (let i = 0; i < 1000; i++) if (a() === b()) same++;
     expect(same).toBe(0);
+  });
+});
+
+describe('uniform32Rng', () => {
+  /** 2^-32, exact in float64: the doubles are the 32-bit outputs scaled, with no rounding. */
+  const TWO_POW_MINUS_32 = 1 / 4294967296;
+
+  it('gives the reference outputs from state [1, 2, 3, 4], scaled by 2^-32', () => {
+    // the Rust rand_xoshiro test vector (from memory; reproduced by the reference C program)
+    const rng = uniform32Rng(new Uint32Array([1, 2, 3, 4]));
+    const got = Array.from({ length: 6 }, () => rng() / TWO_POW_MINUS_32);
+    expect(got).toEqual([11520, 0, 5927040, 70819200, 2031721883, 1637235492]);
+  });
+
+  it('gives the reference C program outputs after seeding, one at a time and in bulk alike', () => {
+    // the raw outputs checked in createRng's test above, from the same C program
+    const single = createRng32(42);
+    expect(Array.from({ length: 3 }, () => single() / TWO_POW_MINUS_32)).toEqual([1776835114, 4165204688, 17111135]);
+    const bulk = createRng32(42);
+    const out = new Float64Array(8);
+    bulk.fill(out, 2, 3);
+    expect(Array.from(out.subarray(2, 5), (u) => u / TWO_POW_MINUS_32)).toEqual([1776835114, 4165204688, 17111135]);
+    expect([out[0], out[1], out[5]]).toEqual([0, 0, 0]);
+    // the stream continues where the bulk draw stopped
+    expect(bulk() / TWO_POW_MINUS_32).toBe(2317295270);
+  });
+
+  it('keeps one stream whatever mix of single and bulk draws reads it', () => {
+    const reference = xoshiro128StarStar(seedState(20240601));
+    const rng = createRng32(20240601);
+    const out = new Float64Array(700);
+    let mismatches = 0;
+    for (let round = 0; round < 20; round++) {
+      if (round % 3 === 0) {
+        rng.fill(out, 0, 35 * round);
+        for (let i = 0; i < 35 * round; i++) if (out[i] !== reference() * TWO_POW_MINUS_32) mismatches++;
+      } else if (rng() !== reference() * TWO_POW_MINUS_32) mismatches++;
+    }
+    expect(mismatches).toBe(0);
+  });
+
+  it('does not change the state it was given', () => {
+    const state = new Uint32Array([1, 2, 3, 4]);
+    const rng = uniform32Rng(state);
+    rng();
+    rng.fill(new Float64Array(10), 0, 10);
+    expect(Array.from(state)).toEqual([1, 2, 3, 4]);
+  });
+});
+
+describe('fillFromRng', () => {
+  it('writes the values single draws would give, with or without a bulk fill', () => {
+    const plain = createRng(3);
+    const expected = Array.from({ length: 5 }, () => plain());
+    const out = new Float64Array(6);
+    fillFromRng(createRng(3), out, 1, 5);
+    expect(Array.from(out.subarray(1))).toEqual(expected);
+    const bulk = new Float64Array(5);
+    fillFromRng(createRng32(3), bulk, 0, 5);
+    const single = createRng32(3);
+    expect(Array.from(bulk)).toEqual(Array.from({ length: 5 }, () => single()));
   });
 });
