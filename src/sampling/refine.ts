@@ -91,6 +91,11 @@ export interface RefineRoundOptions {
    * `active.candidates`; it receives the candidates kept. Default: a new array.
    */
   readonly scratch?: Int32Array;
+  /**
+   * The largest advisory among the samples, when the caller knows it (saves a pass); it decides
+   * the width of the cell table. Default: read from the active samples.
+   */
+  readonly maxAdvisory?: number;
 }
 
 /**
@@ -131,7 +136,7 @@ export function refineInPlace(box: Box, samples: LabelledSamples, count: number,
   // pass 1: which advisories each cell holds, one bit each; a byte per cell when there are at
   // most 8 advisories (a small table stays in cache), else a word (advisory mod 32: two
   // advisories 32 apart would share a bit and hide a boundary, beyond any scenario in sight)
-  const held: CellMask = maxAdvisory(advisory, active) < 8 ? new Uint8Array(grid.cells) : new Int32Array(grid.cells);
+  const held: CellMask = (options.maxAdvisory ?? maxAdvisory(advisory, active)) < 8 ? new Uint8Array(grid.cells) : new Int32Array(grid.cells);
   markCellsInPlace(held, scratch, x, advisory, d, grid, active);
   // thresholds: the median margin of samples in mixed cells (the half nearer the boundary),
   // and a small share of the median margin of all samples (near-ties)

@@ -71,6 +71,8 @@ export async function sampleDomain(inputs: readonly InputSpec[], evaluate: Evalu
   const advisory = new Int32Array(budget);
   const margin = new Float32Array(budget);
   let filled = 0;
+  // the largest advisory seen, for the width of refinement's cell tables
+  let maxAdvisory = 0;
 
   /** Evaluates rows [filled, filled + count) of x, already written, in batches. */
   async function evaluateNew(count: number): Promise<void> {
@@ -81,6 +83,7 @@ export async function sampleDomain(inputs: readonly InputSpec[], evaluate: Evalu
         throw new ToolError('SAMPLING_EVALUATOR', `sampleDomain: evaluator returned ${ev.advisory.length} advisories and ${ev.margin.length} margins for ${rows} rows`);
       }
       advisory.set(ev.advisory.length === rows ? ev.advisory : ev.advisory.subarray(0, rows), filled);
+      maxAdvisory = Math.max(maxAdvisory, largest(advisory, filled, filled + rows));
       margin.set(ev.margin.length === rows ? ev.margin : ev.margin.subarray(0, rows), filled);
       filled += rows;
       options.onProgress?.(filled, budget);
@@ -108,7 +111,7 @@ export async function sampleDomain(inputs: readonly InputSpec[], evaluate: Evalu
     const need = active.candidates.length + active.to - active.from;
     if (spaces[round % 2]!.length < need) spaces[round % 2] = new Int32Array(need);
     const from = filled;
-    const candidates = refineInPlace(box, { x, advisory, margin, n: filled }, count, round, rng, x, filled, { active, scratch: spaces[round % 2]! });
+    const candidates = refineInPlace(box, { x, advisory, margin, n: filled }, count, round, rng, x, filled, { active, scratch: spaces[round % 2]!, maxAdvisory });
     await evaluateNew(count);
     active = { candidates, from, to: filled };
   }
@@ -124,4 +127,11 @@ function toBoxInPlace(box: Box, x: Float64Array, from: number, to: number): void
     x[i] = lo[j]! + x[i]! * width[j]!;
     if (++j === d) j = 0;
   }
+}
+
+/** The largest of values[from .. to) (0 when empty). */
+function largest(values: Int32Array, from: number, to: number): number {
+  let max = 0;
+  for (let i = from; i < to; i++) if (values[i]! > max) max = values[i]!;
+  return max;
 }
