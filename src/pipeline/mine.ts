@@ -35,6 +35,8 @@ export interface MineSettings {
   readonly proveSeconds: number;
   /** Worker threads for proving (1: in this thread). */
   readonly jobs: number;
+  /** Split refuted and unknown rules into proven readable sub-rules. */
+  readonly repair: boolean;
 }
 
 

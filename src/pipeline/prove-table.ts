@@ -1,7 +1,7 @@
 import type { CheckedRule, Model, Scenario } from '../types.js';
 import type { ReadNetworkResult } from '../prove/index.js';
 import type { ProveBudget } from './prove-rule.js';
-import { settleRule } from './settle-rule.js';
+import { settleRule, type SubRuleCheck } from './settle-rule.js';
 import { proveInWorkers } from './prove-pool.js';
 
 export interface ProveTableHooks {
@@ -24,7 +24,7 @@ export async function proveTable(
   network: ReadNetworkResult,
   scenario: Scenario,
   model: Model,
-  budget: ProveBudget & { readonly jobs: number },
+  budget: ProveBudget & { readonly jobs: number; readonly repair: boolean; readonly check: SubRuleCheck },
   hooks: ProveTableHooks = {},
 ): Promise<ProveTableResult> {
   if (!network.supported) {
@@ -45,7 +45,7 @@ export async function proveTable(
     settled = await proveInWorkers(
       rules,
       scenario,
-      { modelPath: model.path, modelSha256: model.sha256, maxBoxes: budget.maxBoxes, maxSeconds: budget.maxSeconds },
+      { modelPath: model.path, modelSha256: model.sha256, maxBoxes: budget.maxBoxes, maxSeconds: budget.maxSeconds, repair: budget.repair, check: budget.check },
       budget.jobs,
       progress,
     );

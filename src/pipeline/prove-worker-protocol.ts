@@ -1,4 +1,5 @@
 import type { CheckedRule, Scenario } from '../types.js';
+import type { SubRuleCheck } from './settle-rule.js';
 
 /** What a proof worker is started with. */
 export interface WorkerInit {
@@ -8,6 +9,8 @@ export interface WorkerInit {
   readonly modelSha256: string;
   readonly maxBoxes: number;
   readonly maxSeconds: number;
+  readonly repair: boolean;
+  readonly check: SubRuleCheck;
 }
 
 /** Messages from a worker: ready for work, a settled rule (with any sub-rules), or a failure. */

@@ -24,6 +24,8 @@ try {
         maxBoxes: init.maxBoxes,
         maxSeconds: init.maxSeconds,
         now: () => performance.now(),
+        repair: init.repair,
+        check: init.check,
       });
       send({ kind: 'result', i: m.i, rules });
     } catch (e) {

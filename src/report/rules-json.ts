@@ -25,6 +25,8 @@ export interface RulesJsonDocument {
   readonly inputs: readonly InputSpec[];
   readonly advisories: readonly string[];
   readonly fidelity?: RuleTable['fidelity'];
+  readonly coverage?: RuleTable['coverage'];
+  readonly notes?: RuleTable['notes'];
   readonly rules: readonly RuleJson[];
 }
 
@@ -53,6 +55,8 @@ export function toRulesJson(table: RuleTable): RulesJsonDocument {
     inputs: table.inputs,
     advisories: table.advisories,
     ...(table.fidelity ? { fidelity: table.fidelity } : {}),
+    ...(table.coverage ? { coverage: table.coverage } : {}),
+    ...(table.notes && table.notes.length > 0 ? { notes: table.notes } : {}),
     rules,
   };
 }

@@ -27,6 +27,14 @@ export function rulesMdText(table: RuleTable): string {
         `balanced fidelity ${pct(f.balanced)}; not covered by any rule ${pct(f.uncovered)}`,
     );
   }
+  if (table.coverage) {
+    lines.push(
+      `- Proven coverage of the domain: ${pct(table.coverage.total)} (` +
+        table.advisories.map((a, j) => `\`${a}\` ${pct(table.coverage!.perAdvisory[j]!)}`).join(', ') +
+        ')',
+    );
+  }
+  for (const note of table.notes ?? []) lines.push(`- Note: ${note}`);
   lines.push('', '## Inputs', '', '| input | unit | min | max | description |', '| --- | --- | --- | --- | --- |');
   for (const i of table.inputs) lines.push(`| \`${i.name}\` | ${i.unit} | ${i.min} | ${i.max} | ${escapeCell(i.description)} |`);
   if (f) {

@@ -15,8 +15,20 @@ export function writeRunFolder(dir: string, table: RuleTable, extra: ReadonlyArr
     { path: join(dir, 'rules.json'), data: rulesJsonText(table) },
     { path: join(dir, 'rules.csv'), data: rulesCsvText(table) },
     { path: join(dir, 'rules.md'), data: rulesMdText(table) },
+    ...(table.coverage ? [{ path: join(dir, 'atlas.json'), data: atlasJsonText(table) }] : []),
     ...extra.map((e) => ({ path: join(dir, e.name), data: e.data })),
   ];
   writeFilesAtomic(files);
   return files.map((f) => f.path);
+}
+
+/**
+ * atlas.json: the proven boxes of a table with their allowed advisories (names), for the report
+ * and for tools that want the proven partition without the rest of the evidence.
+ */
+export function atlasJsonText(table: RuleTable): string {
+  const boxes = table.rules
+    .filter((r) => r.evidence.status === 'proven')
+    .map(({ rule }) => ({ rule: rule.id, allowed: rule.allowed.map((a) => table.advisories[a]!), box: rule.box.map(([lo, hi]) => [lo, hi]) }));
+  return JSON.stringify({ inputs: table.inputs.map((i) => i.name), coverage: table.coverage ?? null, boxes }) + '\n';
 }

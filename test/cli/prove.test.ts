@@ -52,6 +52,30 @@ describe('specula prove', () => {
     expect(readFileSync(join(dir, 'run', 'rules.md'), 'utf8')).toContain('| proven |');
   });
 
+  it('with --repair, splits a rule crossing a boundary into proven sub-rules inside the true region', async () => {
+    const { dir } = writeBoxScenario(boxNetwork2d());
+    expect(await main(['mine', 'scenario.json', '--out', 'run', '--no-prove', ...SMALL], capture(dir))).toBe(0);
+    const path = join(dir, 'run', 'rules.json');
+    const doc = JSON.parse(readFileSync(path, 'utf8'));
+    doc.rules = [{ ...doc.rules[0], id: 'R1', allowed: ['B'], box: { x1: [3, 10], x2: [0, 5.9] }, origin: { kind: 'mined' } }];
+    writeFileSync(path, JSON.stringify(doc));
+    const io = capture(dir);
+    expect(await main(['prove', 'run', '--repair', '--jobs', '1', '--json'], io)).toBe(0);
+    const out = JSON.parse(io.out());
+    expect(out.rules[0].evidence.status).toBe('refuted');
+    const subs = out.rules.slice(1);
+    expect(subs.length).toBeGreaterThan(0);
+    for (const sub of subs) {
+      expect(sub.origin).toEqual({ kind: 'repaired', from: 'R1' });
+      expect(sub.evidence.status).toBe('proven');
+      // B holds where x1 >= 4 (construction): every proven sub-box must lie there
+      expect(sub.box.x1[0]).toBeGreaterThanOrEqual(4);
+    }
+    expect(out.coverage.total).toBeGreaterThan(0);
+    const atlas = JSON.parse(readFileSync(join(dir, 'run', 'atlas.json'), 'utf8'));
+    expect(atlas.boxes.map((b: { rule: string }) => b.rule)).toEqual(subs.map((r: { id: string }) => r.id));
+  });
+
   it('refuses a run whose model file changed, with exit 2', async () => {
     const { dir } = writeBoxScenario(boxNetwork2d());
     expect(await main(['mine', 'scenario.json', '--out', 'run', '--no-prove', ...SMALL], capture(dir))).toBe(0);

@@ -23,6 +23,7 @@ const SETTINGS = {
   proveBoxes: 1,
   proveSeconds: 1,
   jobs: 1,
+  repair: false,
 };
 
 /**

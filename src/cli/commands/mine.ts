@@ -39,6 +39,7 @@ export function mineBuilder<T>(y: Argv<T>) {
     .option('fidelity-samples', { type: 'number', default: MINE_DEFAULTS.fidelitySamples, describe: 'fresh uniform samples for the fidelity figures' })
     .option('report', { type: 'boolean', default: true, describe: 'write report.html with slice plots (--no-report to skip)' })
     .option('prove', { type: 'boolean', default: true, describe: 'prove the rules by bound propagation (--no-prove to skip)' })
+    .option('repair', { type: 'boolean', default: false, describe: 'split refuted rules into proven readable sub-rules (slow: minutes on the demo)' })
     .option('prove-boxes', { type: 'number', default: MINE_DEFAULTS.proveBoxes, describe: 'proof budget per rule: pieces of the box bounded' })
     .option('prove-seconds', { type: 'number', default: MINE_DEFAULTS.proveSeconds, describe: 'proof budget per rule: seconds (safety net)' })
     .example('$0 mine scenarios/survey-boat/scenario.json', 'mine the demo scenario into runs/survey-boat-<timestamp>')
@@ -86,6 +87,7 @@ export async function runMine(args: MineArgs, io: CliIo): Promise<number> {
     proveBoxes: positiveInt('prove-boxes', args['prove-boxes']),
     proveSeconds: positiveNumber('prove-seconds', args['prove-seconds']),
     jobs: positiveInt('jobs', args.jobs),
+    repair: args.repair,
   };
   const scenario = loadScenario(resolve(io.cwd, String(args.scenario)));
   const modelOptions = { threads: positiveInt('threads', args.threads), ...(args.model ? { modelPath: resolve(io.cwd, args.model) } : {}) };

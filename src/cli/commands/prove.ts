@@ -20,6 +20,7 @@ export function proveBuilder<T>(y: Argv<T>) {
     .option('scenario', { type: 'string', describe: "the run's scenario file, if it moved (its SHA-256 must match the run's)" })
     .option('prove-boxes', { type: 'number', default: MINE_DEFAULTS.proveBoxes, describe: 'proof budget per rule: pieces of the box bounded' })
     .option('prove-seconds', { type: 'number', default: MINE_DEFAULTS.proveSeconds, describe: 'proof budget per rule: seconds (safety net)' })
+    .option('repair', { type: 'boolean', default: false, describe: 'split refuted rules into proven readable sub-rules (slow: minutes on the demo)' })
     .option('threads', { type: 'number', default: 1, describe: 'onnxruntime intra-op threads' })
     .option('jobs', { type: 'number', default: availableParallelism(), describe: 'worker threads for proving (default: the available cores)' })
     .example('$0 prove runs/demo', 're-prove the rules of runs/demo and rewrite its files')
@@ -34,6 +35,7 @@ type ProveArgs = {
   'prove-seconds': number;
   threads: number;
   jobs: number;
+  repair: boolean;
   json: boolean;
   quiet: boolean;
 };
@@ -55,7 +57,15 @@ export async function runProve(args: ProveArgs, io: CliIo): Promise<number> {
   });
   const progress = createProgress(io, args.quiet || args.json);
   try {
-    const settled = await settleTable(table, scenario, model, { proveBoxes: boxes, proveSeconds: seconds, jobs: args.jobs }, progress);
+    const settled = await settleTable(table, scenario, model, {
+      proveBoxes: boxes,
+      proveSeconds: seconds,
+      jobs: args.jobs,
+      repair: args.repair,
+      seed: table.manifest.seed,
+      checkSamples: numberSetting(table.manifest.settings['checkSamples'], MINE_DEFAULTS.checkSamples),
+      confidence: numberSetting(table.manifest.settings['confidence'], 0.95),
+    }, progress);
     const extra = existsSync(join(runDir, 'report.html'))
       ? [{ name: 'report.html', data: await buildReportHtml(toRulesJson(settled), model.evaluate, { title: scenario.title }) }]
       : [];
@@ -68,4 +78,8 @@ export async function runProve(args: ProveArgs, io: CliIo): Promise<number> {
     progress.stop();
     await model.close();
   }
+}
+
+function numberSetting(v: unknown, fallback: number): number {
+  return typeof v === 'number' && Number.isFinite(v) ? v : fallback;
 }

@@ -37,5 +37,7 @@ export function fromRulesJson(doc: RulesJsonDocument, file = 'rules.json'): Rule
     decision: doc.decision,
     rules,
     ...(doc.fidelity ? { fidelity: doc.fidelity } : {}),
+    ...(doc.coverage ? { coverage: doc.coverage } : {}),
+    ...(doc.notes ? { notes: doc.notes } : {}),
   };
 }
