@@ -128,14 +128,19 @@ export function planMainBox(region: Box, points: GuidePoints, limits: readonly R
  * @param co the first k entries: obstacle coordinates, ascending
  */
 function cutPast(co: Float64Array, k: number, c: number, side: Side, lo: number, hi: number, limits: ReadableCutLimits): number | undefined {
-  let value = readableCut(c, side, lo, hi, limits);
+  let past = c;
+  let value = readableCut(past, side, lo, hi, limits);
   while (value !== undefined) {
-    // the removed obstacle nearest the cut: first above it (lo side) or last below it (hi side)
+    // the removed obstacle nearest the cut: last below it (lo side) or first above it (hi side)
     const t = side === 'lo' ? countBelow(co, k, value) - 1 : countAtOrBelow(co, k, value);
     if (t < 0 || t >= k) return value;
     const near = co[t]!;
-    if (Math.abs(value - near) >= limits.clearance) return value;
-    value = readableCut(near, side, lo, hi, limits);
+    // `past` only moves outward, over finitely many obstacles: the loop ends; a gap short of the
+    // clearance by rounding alone (near === past) is accepted
+    const further = side === 'lo' ? near > past : near < past;
+    if (!further || Math.abs(value - near) >= limits.clearance) return value;
+    past = near;
+    value = readableCut(past, side, lo, hi, limits);
   }
   return undefined;
 }
