@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { writeMlpOnnx } from '../../src/model/index.js';
 import { createRng } from '../../src/train/index.js';
-import { FAST_MINE, judge, runCli, type Ending } from './helpers/run-cli.js';
+import { FAST_MINE, fuzzCases, judge, runCli, type FuzzTally } from './helpers/run-cli.js';
 import { scenarioCases, type ScenarioCase } from './helpers/scenario-cases.js';
 
 const SCENARIO = resolve('scenarios/cruise-spacing/scenario.json');
@@ -30,23 +30,17 @@ beforeAll(() => {
   ]);
 });
 
-/** Runs `mine` on each case in its own folder; returns how many ended each way, the cases that ran, and every problem. */
-async function fuzz(cases: readonly ScenarioCase[]): Promise<{ endings: Record<Ending, number>; ran: ScenarioCase[]; problems: string[] }> {
-  const endings: Record<Ending, number> = { ran: 0, refused: 0 };
-  const ran: ScenarioCase[] = [];
-  const problems: string[] = [];
-  for (const [i, c] of cases.entries()) {
+/** Runs `mine` on each case in its own folder. */
+function fuzz(cases: readonly ScenarioCase[]): Promise<FuzzTally<ScenarioCase>> {
+  return fuzzCases(cases, async (c, i) => {
     const folder = join(dir, `${c.kind.replace(/ /g, '-')}-${i}`);
     mkdirSync(folder);
     if (c.model === 'wide') writeFileSync(join(folder, 'model.onnx'), wideModel);
     else copyFileSync(MODEL, join(folder, 'model.onnx'));
     writeFileSync(join(folder, 'scenario.json'), c.text);
-    const verdict = judge(await runCli(['mine', 'scenario.json', '--out', 'run', ...FAST_MINE], folder), join(folder, 'run'));
-    if ('ending' in verdict) endings[verdict.ending]++;
-    else problems.push(`${c.kind}, ${c.label}: ${verdict.problem}`);
-    if ('ending' in verdict && verdict.ending === 'ran') ran.push(c);
-  }
-  return { endings, ran, problems };
+    const outcome = await runCli(['mine', 'scenario.json', '--out', 'run', ...FAST_MINE], folder);
+    return { outcome, runFolder: join(folder, 'run') };
+  });
 }
 
 const ofKind = (...kinds: Array<ScenarioCase['kind']>): ScenarioCase[] => CASES.filter((c) => kinds.includes(c.kind));

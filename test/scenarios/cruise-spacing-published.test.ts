@@ -18,7 +18,7 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { resolve } from 'node:path';
-import { offendingRules, regionAgreement, regionBox, type PublishedRegion } from './helpers/published-region.js';
+import { coreAndWholeAgreement, offendingRules, regionBox, type PublishedRegion } from './helpers/published-region.js';
 import { mineDemo, type MinedTable } from './helpers/mine-demo.js';
 
 const SCENARIO = resolve('scenarios/cruise-spacing/scenario.json');
@@ -71,10 +71,8 @@ const timeGapBelow = (tau: number, allowed: number[], name: string): PublishedRe
   allowed,
 });
 
-function agreement(rules: MinedTable['rules'], region: PublishedRegion): { core: number; whole: number } {
-  const at = (band: number): number => regionAgreement(rules, region, table.inputs, { n: AGREEMENT_POINTS, seed: 1, band }).agree;
-  return { core: at(BOUNDARY_BAND), whole: at(0) };
-}
+const agreement = (rules: MinedTable['rules'], region: PublishedRegion): { core: number; whole: number } =>
+  coreAndWholeAgreement(rules, region, table.inputs, { band: BOUNDARY_BAND, n: AGREEMENT_POINTS });
 
 /** Volume-weighted: on the region's core at least 99 %, on the whole region at least 85 %. */
 function expectAgreement(region: PublishedRegion): void {

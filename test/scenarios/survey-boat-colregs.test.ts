@@ -12,7 +12,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { resolve } from 'node:path';
 import { ABAFT_BEAM_DEG, SURVEY_BOAT_POLICY_DEFAULTS as S } from '../../scenarios/survey-boat/policy.js';
-import { offendingRules, regionAgreement, regionBox, type PublishedRegion } from './helpers/published-region.js';
+import { coreAndWholeAgreement, offendingRules, regionBox, type PublishedRegion } from './helpers/published-region.js';
 import { mineDemo, type MinedTable } from './helpers/mine-demo.js';
 
 const SCENARIO = resolve('scenarios/survey-boat/scenario.json');
@@ -69,10 +69,8 @@ const risk = { cpa_nm: [0, S.cpaLimitNm], tcpa_min: [0, S.tcpaWindowMin] } as co
  * counts, whatever its status: the dense check refutes almost every mined rule somewhere on its
  * faces, and the table is what a reviewer reads.
  */
-function agreement(rules: MinedTable['rules'], region: PublishedRegion): { core: number; whole: number } {
-  const at = (band: number): number => regionAgreement(rules, region, table.inputs, { n: AGREEMENT_POINTS, seed: 1, band }).agree;
-  return { core: at(BOUNDARY_BAND), whole: at(0) };
-}
+const agreement = (rules: MinedTable['rules'], region: PublishedRegion): { core: number; whole: number } =>
+  coreAndWholeAgreement(rules, region, table.inputs, { band: BOUNDARY_BAND, n: AGREEMENT_POINTS });
 
 function expectAgreement(region: PublishedRegion, wholeLeast: number): void {
   const { core, whole } = agreement(table.rules, region);

@@ -47,3 +47,30 @@ export function judge(outcome: CliOutcome, runFolder: string): { ending: Ending 
   }
   return { problem: `exit ${code}: ${shown}` };
 }
+
+/** How a batch of fuzz cases ended: counts, the cases that ran, and a line per problem. */
+export interface FuzzTally<C> {
+  readonly endings: Record<Ending, number>;
+  readonly ran: C[];
+  readonly problems: string[];
+}
+
+/** Runs every case (one `runOne` call each, in order) and judges how it ended. */
+export async function fuzzCases<C extends { readonly kind: string; readonly label: string }>(
+  cases: readonly C[],
+  runOne: (c: C, index: number) => Promise<{ outcome: CliOutcome; runFolder: string }>,
+): Promise<FuzzTally<C>> {
+  const endings: Record<Ending, number> = { ran: 0, refused: 0 };
+  const ran: C[] = [];
+  const problems: string[] = [];
+  for (const [i, c] of cases.entries()) {
+    const { outcome, runFolder } = await runOne(c, i);
+    const verdict = judge(outcome, runFolder);
+    if (!('ending' in verdict)) problems.push(`${c.kind}, ${c.label}: ${verdict.problem}`);
+    else {
+      endings[verdict.ending]++;
+      if (verdict.ending === 'ran') ran.push(c);
+    }
+  }
+  return { endings, ran, problems };
+}

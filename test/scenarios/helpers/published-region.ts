@@ -133,3 +133,17 @@ export function regionAgreement(
   }
   return { points: n, agree: agree / n, uncovered: uncovered / n };
 }
+
+/**
+ * The volume-weighted agreement on the region's core (narrowed by `band`) and on the whole
+ * region, each on `n` points of seed 1.
+ */
+export function coreAndWholeAgreement(
+  rules: readonly Rule[],
+  region: PublishedRegion,
+  inputs: readonly InputSpec[],
+  options: { band: number; n: number },
+): { core: number; whole: number } {
+  const at = (band: number): number => regionAgreement(rules, region, inputs, { n: options.n, seed: 1, band }).agree;
+  return { core: at(options.band), whole: at(0) };
+}
