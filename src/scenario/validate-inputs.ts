@@ -4,8 +4,12 @@ import { describeValue } from './describe-value.js';
 import { FieldReader, isJsonObject } from './field-reader.js';
 import { nameProblem } from './names.js';
 
-/** Most inputs a scenario may have: a limit of this tool (box and rule tables grow with it). */
-export const MAX_INPUTS = 64;
+/**
+ * Most inputs a scenario may have: a limit of this tool. It equals the dimensions of the
+ * sampler's Sobol direction-number table (SOBOL_MAX_DIMENSION in src/sampling/sobol.ts; a test
+ * keeps the two equal), so a scenario the loader accepts can always be sampled.
+ */
+export const MAX_INPUTS = 21;
 
 const INPUT_FIELDS = ['name', 'unit', 'min', 'max', 'description'] as const;
 

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Issue } from '../../src/errors.js';
 import { MAX_INPUTS, validateInputs } from '../../src/scenario/validate-inputs.js';
+import { SOBOL_MAX_DIMENSION } from '../../src/sampling/index.js';
 
 function issuesOf(value: unknown): Issue[] {
   const issues: Issue[] = [];
@@ -61,8 +62,10 @@ describe('validateInputs', () => {
 
   it(`refuses more than ${MAX_INPUTS} inputs as a limit of the tool`, () => {
     const many = Array.from({ length: MAX_INPUTS + 1 }, (_, i) => ({ name: `x${i}`, min: 0, max: 1 }));
-    expect(issuesOf(many)).toEqual([{ path: 'inputs', message: 'expected at most 64 inputs (a limit of this tool), found 65' }]);
+    expect(issuesOf(many)).toEqual([{ path: 'inputs', message: `expected at most ${MAX_INPUTS} inputs (a limit of this tool), found ${MAX_INPUTS + 1}` }]);
     expect(issuesOf(many.slice(0, MAX_INPUTS))).toEqual([]);
+    // the sampler must be able to sample every scenario the loader accepts
+    expect(MAX_INPUTS).toBe(SOBOL_MAX_DIMENSION);
   });
 
   it('refuses an empty list and a value that is not a list', () => {

@@ -26,7 +26,8 @@ function describe(v: unknown): string {
 export function readRulesJson(path: string): RunRules {
   let text: string;
   try {
-    text = readFileSync(path, 'utf8');
+    // A byte-order mark, as Windows editors save UTF-8, is not part of the JSON text.
+    text = readFileSync(path, 'utf8').replace(/^\uFEFF/, '');
   } catch (e) {
     const code = (e as NodeJS.ErrnoException).code;
     throw new FileError('RUN_UNREADABLE', `${path}: cannot read the run's rule table (${code === 'ENOENT' ? 'no such file' : (e as Error).message})`);
