@@ -38,9 +38,9 @@ function linearSlack(a: readonly number[], inputs: readonly InputSpec[], band: n
   return inputs.reduce((s, input, j) => s + Math.abs(a[j]!) * (input.max - input.min), 0) * band;
 }
 
-/** min (or max) of a·x over a box: each coordinate at the end its coefficient's sign picks. */
-function extremeOver(a: readonly number[], box: Box, max: boolean): number {
-  return box.reduce((s, [lo, hi], j) => s + a[j]! * ((a[j]! > 0) === max ? hi : lo), 0);
+/** min of a·x over a box: each coordinate at the end its coefficient's sign picks. */
+function minOver(a: readonly number[], box: Box): number {
+  return box.reduce((s, [lo, hi], j) => s + a[j]! * (a[j]! > 0 ? lo : hi), 0);
 }
 
 /** The region's box narrowed by the band at its edges inside the domain. */
@@ -64,12 +64,12 @@ function clipToCore(box: Box, region: PublishedRegion, inputs: readonly InputSpe
  * is interval intersection, and the linear constraint is then tested at its minimum over the
  * clipped box.
  */
-export function ruleMeetsCore(box: Box, region: PublishedRegion, inputs: readonly InputSpec[], band: number): boolean {
+function ruleMeetsCore(box: Box, region: PublishedRegion, inputs: readonly InputSpec[], band: number): boolean {
   const clipped = clipToCore(box, region, inputs, band);
   if (clipped === undefined) return false;
   if (region.linear === undefined) return true;
   const { a, b } = region.linear;
-  return extremeOver(a, clipped, false) <= b - linearSlack(a, inputs, band);
+  return minOver(a, clipped) <= b - linearSlack(a, inputs, band);
 }
 
 /**
