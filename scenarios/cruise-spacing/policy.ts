@@ -93,20 +93,19 @@ export function cruiseSpacingPolicy(
   const speed = x[1]!;
   const closing = x[2]!;
   const s = settings;
-  // gap < T·closing is TTC < T when closing > 0 and never holds otherwise (gap ≥ 0); likewise
-  // gap < τ·speed is "time gap < τ" and never holds at standstill.
-  const ttcBelow = (t: number): boolean => closing > 0 && gap < t * closing;
-  const timeGapBelow = (t: number): boolean => gap < t * speed;
+  // gap < T·closing is TTC < T when the gap is shrinking (closing > 0); gap < τ·speed is
+  // "time gap < τ" and never holds at standstill. Plain products: no division, no allocation.
+  const shrinking = closing > 0;
 
   // Imminent collision: a serious conflict (TTC < 1.5 s), then the FCW deadline (TTC < 2.1 s).
-  if (ttcBelow(s.brakeHardTtcS)) return BRAKE_HARD;
-  if (ttcBelow(s.brakeTtcS)) return BRAKE;
+  if (shrinking && gap < s.brakeHardTtcS * closing) return BRAKE_HARD;
+  if (shrinking && gap < s.brakeTtcS * closing) return BRAKE;
   // Closer than the ISO 15622 minimum time gap: brake while the gap still shrinks, else let it
   // open by easing off.
-  if (timeGapBelow(s.minTimeGapS)) return closing > 0 ? BRAKE : EASE_OFF;
+  if (gap < s.minTimeGapS * speed) return shrinking ? BRAKE : EASE_OFF;
   // Closing into critical car-following (TTC < 4 s), or following shorter than the band: ease off.
-  if (ttcBelow(s.easeOffTtcS) || timeGapBelow(s.lowTimeGapS)) return EASE_OFF;
+  if ((shrinking && gap < s.easeOffTtcS * closing) || gap < s.lowTimeGapS * speed) return EASE_OFF;
   // Longer than the band and the gap is not shrinking: close up to it.
-  if (gap > s.highTimeGapS * speed && closing <= 0) return SPEED_UP;
+  if (gap > s.highTimeGapS * speed && !shrinking) return SPEED_UP;
   return HOLD;
 }
