@@ -74,9 +74,8 @@ describe('mine on fuzzed scenario files', () => {
 
   it('50 inputs against a 50-input model: a run, or a refusal naming the scenario file and its inputs', async () => {
     // Either answer is fine for a tool meant for 2–10 inputs, but a refusal must say which
-    // file and field exceed which limit, like the 65-input case does. (Found: scenario
-    // validation allows 64 inputs while sampling allows 21, and the refusal then reads
-    // "sampleDomain: expected 1 to 21 inputs, found 50", naming neither.)
+    // file and field exceed which limit. (This test found the refusal reading "sampleDomain:
+    // expected 1 to 21 inputs, found 50", naming neither; fixed in 35a387a.)
     const folder = join(dir, 'fifty');
     mkdirSync(folder);
     writeFileSync(join(folder, 'model.onnx'), wideModel);

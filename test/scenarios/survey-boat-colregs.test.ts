@@ -42,10 +42,9 @@ const REGION_AGREEMENT_MIN = 0.97;
 /**
  * The head-on sector is 45° × 22.5° (4 × 2 band widths) and 0.85 % of the domain: about three
  * quarters of it lies within a band of an edge, where a ≤ 60-rule table's boxes are coarse.
- * Measured 85–92 % at 50,000–200,000 samples; core 99.9–100 % until leaves were labelled by the
- * space-filling recount (commit 83ccc40). Since then the 100,000-sample table puts keep_course
- * rules that the dense check finds violated on over half their box into the sector (core
- * 94.4 %, rel_course_deg in [157.5, 180]): a labelling defect of the miner this test reports.
+ * Measured 85–93 % at 50,000–200,000 samples, core 99.9–100 %. (At commit 83ccc40 the core fell
+ * to 94.4 %: keep_course rules that the dense check finds violated on over half their box sat in
+ * the sector; this test caught it.)
  */
 const HEAD_ON_AGREEMENT_MIN = 0.8;
 /** Uniform points per region for the agreement figure: SE ≤ 0.5/√n = 0.0016. */
