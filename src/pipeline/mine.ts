@@ -6,6 +6,7 @@ import { checkRules, measureFidelity } from '../check/index.js';
 import { toolVersion } from '../version.js';
 import { settleTable } from './settle-table.js';
 import { recountTree } from './recount-tree.js';
+import { relabelRules } from './relabel-rules.js';
 import type { MineHooks } from './mine-hooks.js';
 
 export type { MineHooks } from './mine-hooks.js';
@@ -88,15 +89,25 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
   const pruned = pickPrunedTree(recountTree(full, samples.x, spaceFilling, samples.advisory), scenario, settings.maxRules);
   hooks.onStage?.('rules');
   const readable = roundThresholds(pruned, data, scenario.inputs, { tolerance: settings.roundTolerance });
-  const rules = rulesOf(readable, scenario);
+  let rules = rulesOf(readable, scenario);
   hooks.onStage?.('checking');
-  const checked = await checkRules(rules, scenario.inputs, model.evaluate, {
+  const checkOptions = {
     seed: settings.seed,
     samplesPerRule: settings.checkSamples,
     confidence: settings.confidence,
     decision: scenario.decision,
-    onProgress: (done, total) => hooks.onProgress?.('checking', done, total),
-  });
+    onProgress: (done: number, total: number) => hooks.onProgress?.('checking', done, total),
+  };
+  let checked = await checkRules(rules, scenario.inputs, model.evaluate, checkOptions);
+  // A rule whose advisory the network gives on less than half of its box gets the advisory it
+  // gives most often there, and is checked again.
+  const wrong = checked.flatMap((c, i) => (c.evidence.violations * 2 > c.evidence.samples ? [i] : []));
+  if (wrong.length > 0) {
+    const relabelled = await relabelRules(rules, wrong, k, model.evaluate, settings.seed);
+    const again = await checkRules(wrong.map((i) => relabelled[i]!), scenario.inputs, model.evaluate, checkOptions);
+    checked = checked.map((c, i) => (wrong.includes(i) ? again[wrong.indexOf(i)]! : c));
+    rules = relabelled;
+  }
   hooks.onStage?.('fidelity');
   const fidelity = await measureFidelity(rules, scenario.inputs, model.evaluate, {
     seed: settings.seed,

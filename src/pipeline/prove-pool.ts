@@ -20,7 +20,7 @@ export async function proveInWorkers(
   const url = new URL(fromSources ? './prove-worker.ts' : './prove-worker.js', import.meta.url);
   // The built CLI runs the .js worker. Under the TypeScript sources (tests, tsx) the worker
   // first registers tsx's loader (a dev dependency), then imports the .ts worker.
-  const boot = `import('tsx/esm/api').then((m) => { m.register(); return import(${JSON.stringify(url.href)}); })`;
+  const boot = `import(${JSON.stringify(import.meta.resolve('tsx/esm/api'))}).then((m) => { m.register(); return import(${JSON.stringify(url.href)}); })`;
   const start = (data: WorkerInit): Worker => (fromSources ? new Worker(boot, { eval: true, workerData: data }) : new Worker(url, { workerData: data }));
   const results: CheckedRule[][] = new Array(rules.length);
   let next = 0;
