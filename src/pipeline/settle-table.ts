@@ -1,7 +1,7 @@
 import type { Model, RuleTable, Scenario } from '../types.js';
 import { proveTable } from './prove-table.js';
 import { readNetworkOf } from './read-network.js';
-import { provenCoverage } from './proven-coverage.js';
+import { provenCoverage } from '../repair/index.js';
 import type { MineHooks } from './mine-hooks.js';
 
 export interface ProveSettings {
@@ -57,7 +57,7 @@ export async function settleTable(table: RuleTable, scenario: Scenario, model: M
       settings: { ...table.manifest.settings, proveBoxes: settings.proveBoxes, proveSeconds: settings.proveSeconds, repair },
     },
     rules: proved.rules,
-    ...(proved.unsupported ? {} : { coverage: provenCoverage(proved.rules, table.inputs, table.advisories.length) }),
+    ...(proved.unsupported ? {} : { coverage: provenCoverage(proved.rules, table.inputs, table.advisories) }),
     ...(notes.length > 0 ? { notes } : {}),
   };
 }
