@@ -11,6 +11,7 @@ import { cautionsText, summaryText, toRulesJson, writeFilesAtomic, writeRunFolde
 import { buildReportHtml } from '../../report/html/index.js';
 import type { RuleTable } from '../../types.js';
 import { toolVersion } from '../../version.js';
+import { positiveInt, timestamp } from '../option-checks.js';
 import type { CliIo } from '../io.js';
 import { commonOptions, samplingOptions } from '../options.js';
 import { createProgress } from '../progress.js';
@@ -37,15 +38,6 @@ export function checkBuilder<T>(y: Argv<T>) {
 }
 
 type CheckArgs = Awaited<ReturnType<ReturnType<typeof checkBuilder>['parseAsync']>>;
-
-function positiveInt(name: string, v: number): number {
-  if (!Number.isInteger(v) || v < 1) throw new UsageError(`--${name}: expected a positive integer, found ${v}`);
-  return v;
-}
-
-function timestamp(d: Date): string {
-  return d.toISOString().replace(/[-:]/g, '').replace(/\.\d+Z$/, 'Z');
-}
 
 function sha256Of(path: string): string {
   return createHash('sha256').update(readFileSync(path)).digest('hex');

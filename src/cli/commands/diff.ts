@@ -5,6 +5,7 @@ import { loadScenario } from '../../scenario/index.js';
 import { loadModel } from '../../model/index.js';
 import { CHANGE_MIN_SHARE_DEFAULT, diffJson, diffModels, diffSummaryText, evaluateGates, parseFailOn, readRuleSource, writeDiffFolder } from '../../diff/index.js';
 import type { Model, Scenario } from '../../types.js';
+import { positiveInt, timestamp } from '../option-checks.js';
 import type { CliIo } from '../io.js';
 import { commonOptions, samplingOptions } from '../options.js';
 import { createProgress } from '../progress.js';
@@ -44,15 +45,6 @@ export function diffBuilder<T>(y: Argv<T>) {
 }
 
 type DiffArgs = Awaited<ReturnType<ReturnType<typeof diffBuilder>['parseAsync']>>;
-
-function positiveInt(name: string, v: number): number {
-  if (!Number.isInteger(v) || v < 1) throw new UsageError(`--${name}: expected a positive integer, found ${v}`);
-  return v;
-}
-
-function timestamp(d: Date): string {
-  return d.toISOString().replace(/[-:]/g, '').replace(/\.\d+Z$/, 'Z');
-}
 
 /** Loads one side of the diff; a width that does not match the scenario is named as a before/after mismatch. */
 async function loadSide(scenario: Scenario, side: 'before' | 'after', path: string, threads: number): Promise<Model> {

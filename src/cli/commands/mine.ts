@@ -6,6 +6,7 @@ import { mine } from '../../pipeline/mine.js';
 import { summaryText, toRulesJson, writeRunFolder } from '../../report/index.js';
 import { buildReportHtml } from '../../report/html/index.js';
 import { UsageError } from '../../errors.js';
+import { positiveInt, positiveNumber, shareBelowOne, timestamp } from '../option-checks.js';
 import type { CliIo } from '../io.js';
 import { commonOptions, samplingOptions } from '../options.js';
 import { createProgress } from '../progress.js';
@@ -47,25 +48,6 @@ export function mineBuilder<T>(y: Argv<T>) {
 }
 
 type MineArgs = Awaited<ReturnType<ReturnType<typeof mineBuilder>['parseAsync']>>;
-
-function positiveInt(name: string, v: number): number {
-  if (!Number.isInteger(v) || v < 1) throw new UsageError(`--${name}: expected a positive integer, found ${v}`);
-  return v;
-}
-
-function shareBelowOne(name: string, v: number): number {
-  if (!(v >= 0 && v < 1)) throw new UsageError(`--${name}: expected a number in [0, 1), found ${v}`);
-  return v;
-}
-
-function positiveNumber(name: string, v: number): number {
-  if (!(Number.isFinite(v) && v > 0)) throw new UsageError(`--${name}: expected a positive number, found ${v}`);
-  return v;
-}
-
-function timestamp(d: Date): string {
-  return d.toISOString().replace(/[-:]/g, '').replace(/\.\d+Z$/, 'Z');
-}
 
 export async function runMine(args: MineArgs, io: CliIo): Promise<number> {
   const confidence = args.confidence;

@@ -2,11 +2,11 @@ import { join, relative, resolve } from 'node:path';
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import type { Argv } from 'yargs';
-import { UsageError } from '../../errors.js';
 import { readRulesJson, fromRulesJson } from '../../report/export/index.js';
 import { openRunModel, buildReportHtml } from '../../report/html/index.js';
 import { summaryText, toRulesJson, writeRunFolder } from '../../report/index.js';
 import { settleTable } from '../../pipeline/settle-table.js';
+import { positiveInt, positiveNumber } from '../option-checks.js';
 import type { CliIo } from '../io.js';
 import { commonOptions } from '../options.js';
 import { createProgress } from '../progress.js';
@@ -44,9 +44,9 @@ type ProveArgs = {
 export async function runProve(args: ProveArgs, io: CliIo): Promise<number> {
   const boxes = args['prove-boxes'];
   const seconds = args['prove-seconds'];
-  if (!Number.isInteger(boxes) || boxes < 1) throw new UsageError(`--prove-boxes: expected a positive integer, found ${boxes}`);
-  if (!Number.isInteger(args.jobs) || args.jobs < 1) throw new UsageError(`--jobs: expected a positive integer, found ${args.jobs}`);
-  if (!(Number.isFinite(seconds) && seconds > 0)) throw new UsageError(`--prove-seconds: expected a positive number, found ${seconds}`);
+  positiveInt('prove-boxes', boxes);
+  positiveInt('jobs', args.jobs);
+  positiveNumber('prove-seconds', seconds);
   const runDir = resolve(io.cwd, String(args.run));
   const { doc } = readRulesJson(join(runDir, 'rules.json'));
   const table = fromRulesJson(doc, join(runDir, 'rules.json'));
