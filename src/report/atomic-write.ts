@@ -3,6 +3,13 @@ import { basename, dirname, join } from 'node:path';
 import { FileError } from '../errors.js';
 
 let counter = 0;
+/** Targets this process has replaced so far (after their rename), for the interrupt message. */
+let replaced = 0;
+
+/** How many output files this process has written completely (renamed into place) so far. */
+export function filesReplaced(): number {
+  return replaced;
+}
 
 /**
  * Writes a file atomically: the data go to a temporary file in the same folder, which is then
@@ -16,6 +23,7 @@ export function writeFileAtomic(path: string, data: string | Uint8Array): void {
     mkdirSync(dir, { recursive: true });
     writeFileSync(tmp, data);
     renameSync(tmp, path);
+    replaced++;
   } catch (e) {
     rmSync(tmp, { force: true });
     throw new FileError('FILE_WRITE', `${path}: cannot write (${(e as Error).message})`);
@@ -41,5 +49,8 @@ export function writeFilesAtomic(files: ReadonlyArray<{ path: string; data: stri
     for (const s of staged) rmSync(s.tmp, { force: true });
     throw new FileError('FILE_WRITE', `cannot write outputs (${(e as Error).message})`);
   }
-  for (const s of staged) renameSync(s.tmp, s.path);
+  for (const s of staged) {
+    renameSync(s.tmp, s.path);
+    replaced++;
+  }
 }

@@ -1,5 +1,5 @@
 export { CAUTIONS, cautionsText } from './cautions.js';
-export { writeFileAtomic, writeFilesAtomic } from './atomic-write.js';
+export { filesReplaced, writeFileAtomic, writeFilesAtomic } from './atomic-write.js';
 export { rulesJsonText, toRulesJson, RULES_JSON_FORMAT, RULES_JSON_VERSION } from './rules-json.js';
 export type { RulesJsonDocument, RuleJson } from './rules-json.js';
 export { rulesCsvText } from './rules-csv.js';
