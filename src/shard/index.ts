@@ -1,5 +1,6 @@
 /**
- * Sharding: `--shard K/N` splits the work items of `check` and `prove` (the rules) over N
+ * Sharding: `--shard K/N` splits the work items of `check`, `prove` and `diff` (the rules; for
+ * diff also the change figures) over N
  * processes; each writes a partial result file, and `merge` assembles the run folder a single
  * run would have written (docs/sharding.md).
  */
@@ -11,6 +12,7 @@ export {
   partialJsonText,
   PARTIAL_FORMAT,
   PARTIAL_VERSION,
+  CHANGE_ITEM,
   type PartialFile,
   type PartialItem,
   type PartialRun,
@@ -21,3 +23,6 @@ export { checkParts, type PartAt } from './check-parts.js';
 export { mergeParts } from './merge-parts.js';
 export { selectShard } from './select-shard.js';
 export { writePartial } from './write-partial.js';
+export { makeDiffPartial } from './make-diff-partial.js';
+export { mergeDiffParts } from './merge-diff-parts.js';
+export { fileSha256 } from './file-sha256.js';

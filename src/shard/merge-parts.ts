@@ -13,7 +13,7 @@ import type { PartAt } from './check-parts.js';
  */
 export function mergeParts(parts: readonly PartAt[]): RuleTable {
   const sorted = [...parts].sort((a, b) => a.part.shard - b.part.shard);
-  const base = fromRulesJson(sorted[0]!.part.table, sorted[0]!.path);
+  const base = fromRulesJson(sorted[0]!.part.table!, sorted[0]!.path);
   const total = sorted[0]!.part.run.items;
   const groups = new Array<CheckedRule[]>(total);
   const notes: string[] = [];
@@ -21,7 +21,7 @@ export function mergeParts(parts: readonly PartAt[]): RuleTable {
   let date = base.manifest.date;
   let withCoverage = false;
   for (const { path, part } of sorted) {
-    const table = fromRulesJson(part.table, path);
+    const table = fromRulesJson(part.table!, path);
     let at = 0;
     for (const it of part.items) {
       groups[it.index] = table.rules.slice(at, at + it.results);

@@ -1,4 +1,5 @@
 import type { RulesJsonDocument } from '../report/index.js';
+import type { DiffPart } from '../diff/index.js';
 import type { ShardSpec } from './shard-spec.js';
 
 /** Identifies a partial result file and its layout version (docs/formats.md). */
@@ -6,7 +7,10 @@ export const PARTIAL_FORMAT = 'specula-partial';
 export const PARTIAL_VERSION = 1;
 
 /** The commands whose work can be split with `--shard`. */
-export type ShardCommand = 'check' | 'prove';
+export type ShardCommand = 'check' | 'prove' | 'diff';
+
+/** The id of diff's one work item that is not a rule: the changed share and the change rules. */
+export const CHANGE_ITEM = '*change';
 
 /**
  * What every part of one run shares, and `merge` compares: the tool, the input files (by
@@ -18,7 +22,7 @@ export interface PartialRun {
   readonly tool: string;
   readonly toolVersion: string;
   readonly scenarioSha256: string;
-  /** SHA-256 of each model file by role (`model`). */
+  /** SHA-256 of each model file by role (`model`; `before` and `after` for diff). */
   readonly models: Readonly<Record<string, string>>;
   /** SHA-256 of the file the work items come from (a rule file, rules.json or rules.csv). */
   readonly inputSha256: string;
@@ -51,8 +55,10 @@ export interface PartialFile {
   /** K of `--shard K/N`. */
   readonly shard: number;
   readonly items: readonly PartialItem[];
-  /** This shard's rule table, as rules.json holds one; its rules are the items' results in item order. */
-  readonly table: RulesJsonDocument;
+  /** check, prove: this shard's rule table, as rules.json holds one; its rules are the items' results in item order. */
+  readonly table?: RulesJsonDocument;
+  /** diff: this shard's share of the diff; its rules are the items' results in item order. */
+  readonly diff?: DiffPart;
 }
 
 /** The file name of a part: `shard-K-of-N.json`, so the parts of one run can share a folder. */

@@ -55,11 +55,14 @@ export function readPartial(path: string): PartialFile {
       throw new FileError('PARTIAL_INVALID', `${path}: items[${i}]: expected { index, id, results }, found ${JSON.stringify(it)}`);
     }
   });
-  const table = doc['table'];
-  if (!isObject(table) || !Array.isArray(table['rules'])) throw new FileError('PARTIAL_INVALID', `${path}: table: expected a rule table with rules, found ${kindOf(table)}`);
-  const total = (items as Array<{ results: number }>).reduce((s, it) => s + it.results, 0);
-  if (total !== (table['rules'] as unknown[]).length) {
-    throw new FileError('PARTIAL_INVALID', `${path}: items hold ${total} result rules, table.rules has ${(table['rules'] as unknown[]).length}`);
+  const isDiff = run['command'] === 'diff';
+  const body = isDiff ? doc['diff'] : doc['table'];
+  const name = isDiff ? 'diff' : 'table';
+  if (!isObject(body) || !Array.isArray(body['rules'])) {
+    throw new FileError('PARTIAL_INVALID', `${path}: ${name}: expected ${isDiff ? 'a share of a diff' : 'a rule table'} with rules, found ${kindOf(body)}`);
   }
+  const held = (body['rules'] as unknown[]).length;
+  const total = (items as Array<{ results: number }>).reduce((s, it) => s + it.results, 0);
+  if (total !== held) throw new FileError('PARTIAL_INVALID', `${path}: items hold ${total} result rules, ${name}.rules has ${held}`);
   return doc as unknown as PartialFile;
 }

@@ -13,7 +13,7 @@ describe('makePartial', () => {
     const result = table([whole[0]!, whole[1]!, whole[2]!]);
     const part = makePartial(result, run(rules.map((r) => r.id), 2), 1, items);
     expect(part.items).toEqual([{ index: 0, id: 'R1', results: 2 }, { index: 2, id: 'R2', results: 1 }]);
-    expect(part.table.rules.map((r) => r.id)).toEqual(['R1', 'R1.1', 'R2']);
+    expect(part.table!.rules.map((r) => r.id)).toEqual(['R1', 'R1.1', 'R2']);
     const other = selectShard(rules, { k: 2, n: 2 }, (r) => r.origin.kind !== 'repaired');
     const part2 = makePartial(table([whole[3]!]), run(rules.map((r) => r.id), 2), 2, other);
     expect(part2.items).toEqual([{ index: 1, id: 'R1.1', results: 0 }, { index: 3, id: 'R3', results: 1 }]);
