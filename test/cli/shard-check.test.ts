@@ -91,7 +91,7 @@ describe('specula check --shard and merge', () => {
   });
 
   it('shows a shard example in --help', async () => {
-    for (const cmd of ['check', 'prove', 'merge']) {
+    for (const cmd of ['check', 'prove', 'diff', 'merge']) {
       const help = await run([cmd, '--help']);
       expect(help.out).toMatch(/--shard \d\/\d|merge parts/);
     }
