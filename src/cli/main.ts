@@ -9,6 +9,7 @@ import { proveBuilder, runProve } from './commands/prove.js';
 import { exportBuilder, runExport } from './commands/export.js';
 import { checkBuilder, runCheck } from './commands/check.js';
 import { diffBuilder, runDiff } from './commands/diff.js';
+import { mergeBuilder, runMerge } from './commands/merge.js';
 
 class ParseFailure extends ToolError {
   constructor(message: string) {
@@ -37,6 +38,7 @@ export async function main(argv: readonly string[], io: CliIo = processIo()): Pr
     .command('export <run>', 'export a run as csv, md, json, smtlib or a verifiable bundle', exportBuilder, async (a) => { code = await runExport(a as never, io); })
     .command('check <scenario> [rules]', 'check given rules (rule file, rules.json, rules.csv) or a reference table against a model', checkBuilder, async (a) => { code = await runCheck(a as never, io); })
     .command('diff <scenario>', 'regression between two models: accepted rules re-checked, changed share, where it changed', diffBuilder, async (a) => { code = await runDiff(a as never, io); })
+    .command('merge <parts..>', 'join the partial results of a sharded check, prove or diff (--shard K/N) into one run folder', mergeBuilder, async (a) => { code = await runMerge(a as never, io); })
     .example('$0 mine scenarios/survey-boat/scenario.json --out runs/demo', 'mine the demo scenario')
     .demandCommand(1, 'name a command: mine, check, diff, prove, report or export')
     .strict()

@@ -6,6 +6,9 @@
 
 // stage entries
 export { diffModels, type DiffSettings } from './diff-models.js';
+export { diffPart, diffResultOf, type DiffPart, type DiffShare } from './diff-part.js';
+export { diffChange, type DiffChange } from './diff-change.js';
+export { acceptedTable, type AcceptedTable } from './accepted-table.js';
 export { checkTable, type CheckTableSettings, type CheckTableOptions } from './check-table.js';
 export { readRuleSource, ruleSourceKind, type RuleSource, type RuleSourceKind } from './read-rule-source.js';
 

@@ -5,11 +5,11 @@ import type { Argv } from 'yargs';
 import { UsageError } from '../../errors.js';
 import { loadScenario } from '../../scenario/index.js';
 import { loadModel } from '../../model/index.js';
-import { checkTable, counterexampleText, readRuleSource } from '../../diff/index.js';
+import { checkTable, counterexampleText, readRuleSource, type RuleSource } from '../../diff/index.js';
 import { compareReference, readReferenceTable, referenceFiles, referenceSummaryText } from '../../reference/index.js';
 import { cautionsText, summaryText, toRulesJson, writeFilesAtomic, writeRunFolder } from '../../report/index.js';
 import { buildReportHtml } from '../../report/html/index.js';
-import type { RuleTable } from '../../types.js';
+import type { Model, RuleTable, Scenario } from '../../types.js';
 import { toolVersion } from '../../version.js';
 import { positiveInt, timestamp } from '../option-checks.js';
 import type { CliIo } from '../io.js';
@@ -17,6 +17,8 @@ import { commonOptions, samplingOptions } from '../options.js';
 import { createProgress } from '../progress.js';
 import { EXIT } from '../exit-codes.js';
 import { MINE_DEFAULTS } from './mine.js';
+import { SHARD_OPTION, shardDone } from './merge.js';
+import { itemsSha256, makePartial, selectShard, shardSpec, writePartial, type ShardSpec } from '../../shard/index.js';
 
 export function checkBuilder<T>(y: Argv<T>) {
   return commonOptions(samplingOptions(y))
@@ -32,9 +34,11 @@ export function checkBuilder<T>(y: Argv<T>) {
     .option('report', { type: 'boolean', default: true, describe: 'write report.html with slice plots (--no-report to skip)' })
     .option('reference', { type: 'string', describe: 'reference lookup table (CSV: one column per input, one advisory column) to compare at its grid points' })
     .option('min-agreement', { type: 'number', default: 1, describe: 'with --reference: exit 1 when the share of agreeing grid points is below this (0..1)' })
+    .option('shard', SHARD_OPTION)
     .example('$0 check scenarios/survey-boat/scenario.json scenarios/survey-boat/expectations.rules', 'check expert expectations on the scenario\'s model')
     .example('$0 check scenario.json runs/accepted/rules.json --model retrained.onnx', 'check an accepted table on a retrained model')
-    .example('$0 check scenario.json --reference table.csv --min-agreement 0.99', 'compare the network with a lookup table at its grid points');
+    .example('$0 check scenario.json --reference table.csv --min-agreement 0.99', 'compare the network with a lookup table at its grid points')
+    .example('$0 check scenario.json expect.rules --shard 2/4 --out parts', 'part 2 of 4 of the rules; then: $0 merge parts --out runs/checked');
 }
 
 type CheckArgs = Awaited<ReturnType<ReturnType<typeof checkBuilder>['parseAsync']>>;
@@ -52,6 +56,45 @@ function findingsText(table: RuleTable): string[] {
     }
   }
   return lines;
+}
+
+type CheckSettings = Parameters<typeof checkTable>[3];
+
+/**
+ * One shard of `check`: the rules at the shard's indices of the whole rule list, checked (and
+ * proved) exactly as the single run checks them (each rule's samples depend on the seed and its
+ * id only), packed with the whole run's identity into shard-K-of-N.json in `where.out`.
+ */
+async function checkShard(
+  scenario: Scenario,
+  model: Model,
+  source: RuleSource,
+  settings: CheckSettings,
+  shard: ShardSpec,
+  where: { out: string; report: boolean },
+  progress: ReturnType<typeof createProgress>,
+) {
+  const repair = settings.repair ?? false;
+  // with repair, sub-rules of an earlier repair are dropped and re-derived (as checkTable does)
+  const items = selectShard(source.rules, shard, (r) => !(repair && r.origin.kind === 'repaired'));
+  const table = await checkTable(scenario, model, items.map((i) => i.rule), settings, { command: 'check', source: source.path, notes: source.warnings }, progress);
+  const { tool, version } = toolVersion();
+  const { jobs: _jobs, seed, ...recorded } = settings;
+  const part = makePartial(table, {
+    command: 'check',
+    tool,
+    toolVersion: version,
+    scenarioSha256: scenario.scenarioSha256,
+    models: { model: model.sha256 },
+    inputSha256: sha256Of(source.path),
+    seed,
+    settings: recorded,
+    shards: shard.n,
+    items: source.rules.length,
+    itemsSha256: itemsSha256(source.rules.map((r) => r.id)),
+    report: where.report,
+  }, shard.k, items);
+  return { path: writePartial(where.out, part), part };
 }
 
 /**
@@ -79,6 +122,9 @@ export async function runCheck(args: CheckArgs, io: CliIo): Promise<number> {
     repair: args.repair,
   };
   if (!(Number.isFinite(settings.proveSeconds) && settings.proveSeconds > 0)) throw new UsageError(`--prove-seconds: expected a positive number, found ${settings.proveSeconds}`);
+  const shard = args.shard === undefined ? undefined : shardSpec(String(args.shard));
+  if (shard && args.out === undefined) throw new UsageError('--shard: name the folder for the partial result with --out');
+  if (shard && args.reference !== undefined) throw new UsageError('--shard: cannot be used with --reference (the reference comparison is not split); run it without --shard');
   const scenario = loadScenario(resolve(io.cwd, String(args.scenario)));
   // Read every input file before the model is loaded, so bad input fails fast.
   const source = args.rules === undefined ? undefined : readRuleSource(resolve(io.cwd, String(args.rules)), scenario);
@@ -88,6 +134,11 @@ export async function runCheck(args: CheckArgs, io: CliIo): Promise<number> {
   const model = await loadModel(scenario, { threads: positiveInt('threads', args.threads), ...(args.model ? { modelPath: resolve(io.cwd, args.model) } : {}) });
   const progress = createProgress(io, args.quiet || args.json);
   try {
+    if (shard && source) {
+      const written = await checkShard(scenario, model, source, settings, shard, { out: resolve(io.cwd, String(args.out)), report: args.report }, progress);
+      progress.stop();
+      return shardDone(io, args, written.path, written.part);
+    }
     const table = source === undefined
       ? undefined
       : await checkTable(scenario, model, source.rules, settings, { command: 'check', source: source.path, notes: source.warnings }, progress);

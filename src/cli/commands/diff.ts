@@ -3,7 +3,7 @@ import type { Argv } from 'yargs';
 import { ModelError, UsageError } from '../../errors.js';
 import { loadScenario } from '../../scenario/index.js';
 import { loadModel } from '../../model/index.js';
-import { CHANGE_MIN_SHARE_DEFAULT, diffJson, diffModels, diffSummaryText, evaluateGates, parseFailOn, readRuleSource, writeDiffFolder } from '../../diff/index.js';
+import { CHANGE_MIN_SHARE_DEFAULT, diffJson, diffModels, diffPart, type DiffSettings, type RuleSource, diffSummaryText, evaluateGates, parseFailOn, readRuleSource, writeDiffFolder } from '../../diff/index.js';
 import type { Model, Scenario } from '../../types.js';
 import { positiveInt, timestamp } from '../option-checks.js';
 import type { CliIo } from '../io.js';
@@ -11,6 +11,8 @@ import { commonOptions, samplingOptions } from '../options.js';
 import { createProgress } from '../progress.js';
 import { EXIT } from '../exit-codes.js';
 import { MINE_DEFAULTS } from './mine.js';
+import { SHARD_OPTION, shardDone } from './merge.js';
+import { CHANGE_ITEM, fileSha256, itemsSha256, makeDiffPartial, shardIndices, shardSpec, writePartial, type ShardSpec } from '../../shard/index.js';
 
 export const DIFF_DEFAULTS = {
   changeSamples: 100_000,
@@ -40,8 +42,10 @@ export function diffBuilder<T>(y: Argv<T>) {
     .option('max-change-rules', { type: 'number', default: DIFF_DEFAULTS.maxChangeRules, describe: 'largest number of change rules' })
     .option('change-min-share', { type: 'number', default: CHANGE_MIN_SHARE_DEFAULT, describe: 'smallest share of the domain a split of the change rules must explain (0..1)' })
     .option('change-check-samples', { type: 'number', default: DIFF_DEFAULTS.changeCheckSamples, describe: 'dense samples per change rule' })
+    .option('shard', { ...SHARD_OPTION, describe: 'do only part K of N of the work (needs --rules): accepted rule i goes to part (i mod N) + 1, the changed share and change rules are one more item; writes shard-K-of-N.json to --out; join with specula merge' })
     .example('$0 diff scenario.json --before model.onnx --after model-v2.onnx --rules runs/accepted/rules.json', 'the accepted table on the new model, and where the advisory changed')
-    .example('$0 diff scenario.json --before a.onnx --after b.onnx --fail-on broken --fail-on "changed>0.5%"', 'a CI gate: exit 1 when a rule broke or more than 0.5 % of the domain changed');
+    .example('$0 diff scenario.json --before a.onnx --after b.onnx --fail-on broken --fail-on "changed>0.5%"', 'a CI gate: exit 1 when a rule broke or more than 0.5 % of the domain changed')
+    .example('$0 diff scenario.json --before a.onnx --after b.onnx --rules accepted.rules --shard 1/4 --out parts', 'part 1 of 4; then: $0 merge parts --out runs/diff');
 }
 
 type DiffArgs = Awaited<ReturnType<ReturnType<typeof diffBuilder>['parseAsync']>>;
@@ -59,6 +63,44 @@ async function loadSide(scenario: Scenario, side: 'before' | 'after', path: stri
     }
     throw e;
   }
+}
+
+/**
+ * One shard of `diff`: the accepted rules at the shard's indices, on both models, and the change
+ * figures when the shard holds item R (R = number of rules), packed with the whole run's identity
+ * into shard-K-of-N.json in `where.out`.
+ */
+async function diffShard(
+  scenario: Scenario,
+  before: Model,
+  after: Model,
+  source: RuleSource,
+  settings: DiffSettings,
+  shard: ShardSpec,
+  where: { out: string; failOn: string },
+  progress: ReturnType<typeof createProgress>,
+) {
+  const count = source.rules.length;
+  const ids = [...source.rules.map((r) => r.id), CHANGE_ITEM];
+  const indices = shardIndices(count + 1, shard);
+  const rules = indices.filter((i) => i < count).map((i) => source.rules[i]!);
+  const share = await diffPart(scenario, before, after, source, settings, { rules, change: indices.includes(count) }, progress);
+  const { seed: _seed, ...recorded } = share.manifest.settings;
+  const part = makeDiffPartial(share, {
+    command: 'diff',
+    tool: share.manifest.tool,
+    toolVersion: share.manifest.toolVersion,
+    scenarioSha256: scenario.scenarioSha256,
+    models: { before: before.sha256, after: after.sha256 },
+    inputSha256: fileSha256(source.path),
+    seed: settings.seed,
+    settings: { ...recorded, failOn: where.failOn },
+    shards: shard.n,
+    items: count + 1,
+    itemsSha256: itemsSha256(ids),
+    report: false,
+  }, shard.k, indices, ids);
+  return { path: writePartial(where.out, part), part };
 }
 
 /**
@@ -110,6 +152,9 @@ export async function runDiff(args: DiffArgs, io: CliIo): Promise<number> {
     throw new UsageError(`--change-min-share: expected a number in [0, 1), found ${settings.changeMinShare}`);
   }
   const threads = positiveInt('threads', args.threads);
+  const shard = args.shard === undefined ? undefined : shardSpec(String(args.shard));
+  if (shard && args.out === undefined) throw new UsageError('--shard: name the folder for the partial result with --out');
+  if (shard && args.rules === undefined) throw new UsageError('--shard: diff needs the accepted table with --rules (mining it from --before is one step that is not split)');
   const scenario = loadScenario(resolve(io.cwd, String(args.scenario)));
   const source = args.rules === undefined ? undefined : readRuleSource(resolve(io.cwd, args.rules), scenario);
   for (const w of source?.warnings ?? []) io.stderr(`specula: warning: ${w}\n`);
@@ -118,6 +163,11 @@ export async function runDiff(args: DiffArgs, io: CliIo): Promise<number> {
   const progress = createProgress(io, args.quiet || args.json);
   try {
     after = await loadSide(scenario, 'after', resolve(io.cwd, args.after), threads);
+    if (shard && source) {
+      const written = await diffShard(scenario, before, after, source, settings, shard, { out: resolve(io.cwd, String(args.out)), failOn: args['fail-on'].map(String).join(',') }, progress);
+      progress.stop();
+      return shardDone(io, args, written.path, written.part);
+    }
     const result = await diffModels(scenario, before, after, source, settings, progress);
     progress.stop();
     const outcomes = evaluateGates(result, gates);

@@ -7,11 +7,16 @@ import { openRunModel, buildReportHtml } from '../../report/html/index.js';
 import { summaryText, toRulesJson, writeRunFolder } from '../../report/index.js';
 import { settleTable } from '../../pipeline/settle-table.js';
 import { positiveInt, positiveNumber } from '../option-checks.js';
+import { UsageError } from '../../errors.js';
 import type { CliIo } from '../io.js';
 import { commonOptions } from '../options.js';
 import { createProgress } from '../progress.js';
 import { EXIT } from '../exit-codes.js';
 import { MINE_DEFAULTS } from './mine.js';
+import { SHARD_OPTION, shardDone } from './merge.js';
+import { itemsSha256, makePartial, selectShard, shardSpec, writePartial } from '../../shard/index.js';
+import { toolVersion } from '../../version.js';
+import { createHash } from 'node:crypto';
 
 export function proveBuilder<T>(y: Argv<T>) {
   return commonOptions(y)
@@ -23,7 +28,10 @@ export function proveBuilder<T>(y: Argv<T>) {
     .option('repair', { type: 'boolean', default: false, describe: 'split refuted rules into proven readable sub-rules (slow: minutes on the demo)' })
     .option('threads', { type: 'number', default: 1, describe: 'onnxruntime intra-op threads' })
     .option('jobs', { type: 'number', default: availableParallelism(), describe: 'worker threads for proving (default: the available cores)' })
+    .option('shard', SHARD_OPTION)
+    .option('out', { type: 'string', describe: 'with --shard: folder for the partial result (the run folder itself is not changed)' })
     .example('$0 prove runs/demo', 're-prove the rules of runs/demo and rewrite its files')
+    .example('$0 prove runs/demo --shard 1/4 --out runs/demo/parts', 'part 1 of 4 of the rules; then: $0 merge runs/demo/parts --out runs/demo')
     .example('$0 prove runs/demo --prove-boxes 100000 --prove-seconds 60', 'give each rule a larger proof budget');
 }
 
@@ -36,6 +44,8 @@ type ProveArgs = {
   threads: number;
   jobs: number;
   repair: boolean;
+  shard?: string | undefined;
+  out?: string | undefined;
   json: boolean;
   quiet: boolean;
 };
@@ -47,9 +57,15 @@ export async function runProve(args: ProveArgs, io: CliIo): Promise<number> {
   positiveInt('prove-boxes', boxes);
   positiveInt('jobs', args.jobs);
   positiveNumber('prove-seconds', seconds);
+  const shard = args.shard === undefined ? undefined : shardSpec(String(args.shard));
+  if (shard && args.out === undefined) throw new UsageError('--shard: name the folder for the partial result with --out');
   const runDir = resolve(io.cwd, String(args.run));
-  const { doc } = readRulesJson(join(runDir, 'rules.json'));
-  const table = fromRulesJson(doc, join(runDir, 'rules.json'));
+  const { doc, text } = readRulesJson(join(runDir, 'rules.json'));
+  const whole = fromRulesJson(doc, join(runDir, 'rules.json'));
+  // a shard proves the rules at its indices of the whole table; sub-rules of an earlier repair
+  // are dropped and re-derived from their parents, as in the single run (settleTable)
+  const items = shard ? selectShard(whole.rules.map((r) => r.rule), shard, (r) => r.origin.kind !== 'repaired') : [];
+  const table = shard ? { ...whole, rules: items.map((i) => whole.rules[i.index]!) } : whole;
   const { model, scenario } = await openRunModel(doc, {
     threads: args.threads,
     ...(args.model ? { modelPath: resolve(io.cwd, args.model) } : {}),
@@ -57,7 +73,7 @@ export async function runProve(args: ProveArgs, io: CliIo): Promise<number> {
   });
   const progress = createProgress(io, args.quiet || args.json);
   try {
-    const settled = await settleTable(table, scenario, model, {
+    const settings = {
       proveBoxes: boxes,
       proveSeconds: seconds,
       jobs: args.jobs,
@@ -65,7 +81,28 @@ export async function runProve(args: ProveArgs, io: CliIo): Promise<number> {
       seed: table.manifest.seed,
       checkSamples: numberSetting(table.manifest.settings['checkSamples'], MINE_DEFAULTS.checkSamples),
       confidence: numberSetting(table.manifest.settings['confidence'], 0.95),
-    }, progress);
+    };
+    const settled = await settleTable(table, scenario, model, settings, progress);
+    if (shard) {
+      progress.stop();
+      const { tool, version } = toolVersion();
+      const { jobs: _jobs, seed, ...recorded } = settings;
+      const part = makePartial(settled, {
+        command: 'prove',
+        tool,
+        toolVersion: version,
+        scenarioSha256: scenario.scenarioSha256,
+        models: { model: model.sha256 },
+        inputSha256: createHash('sha256').update(text).digest('hex'),
+        seed,
+        settings: recorded,
+        shards: shard.n,
+        items: whole.rules.length,
+        itemsSha256: itemsSha256(whole.rules.map((r) => r.rule.id)),
+        report: existsSync(join(runDir, 'report.html')),
+      }, shard.k, items);
+      return shardDone(io, args, writePartial(resolve(io.cwd, String(args.out)), part), part);
+    }
     const extra = existsSync(join(runDir, 'report.html'))
       ? [{ name: 'report.html', data: await buildReportHtml(toRulesJson(settled), model.evaluate, { title: scenario.title }) }]
       : [];
