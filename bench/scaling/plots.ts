@@ -14,7 +14,7 @@ function series(p: MeasuredPoint): string {
   return p.label.endsWith('-expectations') ? `${p.job.kind} (expectation rules)` : p.job.kind;
 }
 
-function timeChart(title: string, rows: object[], x: { field: string; title: string; log: boolean }): Record<string, unknown> {
+function timeChart(title: string, rows: object[], x: { field: string; title: string; log: boolean }, dashBySeries = false): Record<string, unknown> {
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     title, width: WIDTH, height: HEIGHT, background: 'white',
@@ -24,7 +24,7 @@ function timeChart(title: string, rows: object[], x: { field: string; title: str
       x: { field: x.field, type: 'quantitative', title: x.title, scale: x.log ? { type: 'log' } : { zero: false } },
       y: { field: 'seconds', type: 'quantitative', title: 'CPU seconds (log)', scale: { type: 'log' } },
       color: { field: 'job', type: 'nominal', title: 'job', legend: { labelLimit: 320 } },
-      strokeDash: { field: 'series', type: 'nominal', title: 'series', legend: { labelLimit: 320 } },
+      ...(dashBySeries ? { strokeDash: { field: 'series', type: 'nominal', title: 'series', legend: { labelLimit: 320, symbolType: 'stroke' } } } : {}),
     },
   };
 }
@@ -34,16 +34,16 @@ export async function scalingPlots(points: readonly MeasuredPoint[], model: Cost
   const out = new Map<string, string>();
   const of = (sweep: string) => points.filter((p) => p.sweep === sweep);
   const rows = (ps: MeasuredPoint[], x: (p: MeasuredPoint) => number, s = '') => ps.map((p) => ({ x: x(p), seconds: p.cpuSeconds, job: series(p), series: s }));
-  out.set('inputs-time.svg', await renderVegaLiteSvg(timeChart('Time against inputs (trained networks, 5-32-32-4 shape)', rows(of('inputs'), (p) => p.job.inputs), { field: 'x', title: 'inputs', log: false })));
+  out.set('inputs-time.svg', await renderVegaLiteSvg(timeChart('Time against inputs (trained d-32-32-4 networks)', rows(of('inputs'), (p) => p.job.inputs), { field: 'x', title: 'inputs', log: false })));
   const net = of('network');
   const widthRows = rows(net.filter((p) => p.label.endsWith('x2')), (p) => p.job.weights, 'width 16 → 256, depth 2');
   const depthRows = rows(net.filter((p) => p.label.startsWith('64x') || p.label === '64x2'), (p) => p.job.weights, 'depth 2 → 8, width 64');
-  out.set('network-time.svg', await renderVegaLiteSvg(timeChart('Time against network size (random 5-input networks, 10 rules)', [...widthRows, ...depthRows, ...rows(net.filter((p) => p.label === '256x8'), (p) => p.job.weights, 'corner: 256 × 8')], { field: 'x', title: 'weights (log)', log: true })));
+  out.set('network-time.svg', await renderVegaLiteSvg(timeChart('Time against network size (random 5-input networks, 10 rules)', [...widthRows, ...depthRows, ...rows(net.filter((p) => p.label === '256x8'), (p) => p.job.weights, 'corner: 256 × 8')], { field: 'x', title: 'weights (log)', log: true }, true)));
   out.set('rules-time.svg', await renderVegaLiteSvg(timeChart('Time against rules (--max-rules 10 → 400, 50,000 samples)', rows(of('rules'), (p) => p.rulesOut), { field: 'x', title: 'rules in the table (log)', log: true })));
   out.set('samples-time.svg', await renderVegaLiteSvg(timeChart('mine and check time against --samples', rows(of('samples'), (p) => p.job.samples), { field: 'x', title: 'samples (log)', log: true })));
   // proof pieces of the hardest rule not refuted, with the fitted exponential
   const hard = of('inputs').filter((p) => p.job.kind === 'prove' && (p.maxPieces ?? 0) > 0);
-  const measured = hard.map((p) => ({ inputs: p.job.inputs, pieces: p.maxPieces, what: p.label.endsWith('-expectations') ? 'measured, expectation rules' : 'measured, mined table' }));
+  const measured = hard.map((p) => ({ inputs: p.job.inputs, pieces: p.maxPieces, what: (p.statuses['unknown'] ?? 0) > 0 ? 'measured, budget hit (lower bound, not fitted)' : 'measured, all settled (fitted)' }));
   const fitted = [2, 3, 4, 5, 6, 7, 8, 9, 10].map((d) => ({ inputs: d, pieces: Math.exp(model.hardLog + model.hardGrowth * d), what: `fit: ×${Math.exp(model.hardGrowth).toFixed(2)} per input` }));
   out.set('inputs-pieces.svg', await renderVegaLiteSvg({
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',

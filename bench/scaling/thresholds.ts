@@ -51,5 +51,20 @@ export function thresholdLines(model: CostModel): string[] {
     `- --samples: ${samples < 1e10 ? samples.toLocaleString('en-US') : 'not below 1e10'}`,
     `- --max-rules: ${rules < 1e6 ? rules.toLocaleString('en-US') : 'not below 1e6'}`,
   );
+  // inputs at which a hard rule's proof passes the default budgets, on the demo network
+  const demo = defaultMineJob(5, 32, 2, 1);
+  const piece = model.perPiece + model.perPieceWeightLayer * demo.weights * demo.layers;
+  const dAt = (pieces: number): number => (Math.log(pieces) - model.hardLog) / model.hardGrowth;
+  lines.push(
+    '',
+    `A hard rule (a box spanning every free input next to a decision boundary) needs about exp(${model.hardLog.toFixed(2)} + ${model.hardGrowth.toFixed(2)}·d) pieces, ` +
+      `×${Math.exp(model.hardGrowth).toFixed(1)} per input. It passes the default --prove-boxes ${MINE_DEFAULTS.proveBoxes.toLocaleString('en-US')} at d ≈ ${dAt(MINE_DEFAULTS.proveBoxes).toFixed(1)} inputs, ` +
+      `and the default --prove-seconds ${MINE_DEFAULTS.proveSeconds} on the demo-size network (${(1000 * piece).toFixed(2)} ms a piece) at d ≈ ${dAt(MINE_DEFAULTS.proveSeconds / piece).toFixed(1)}: ` +
+      `above that, such rules end \`unknown\` with a part of their volume proven, unless the budgets are raised (each input more costs about ×${Math.exp(model.hardGrowth).toFixed(0)} in pieces and time).`,
+    '',
+    `Proving is bounded by its budgets: at most rules × (--prove-seconds + one piece) / jobs. With the defaults, ${MINE_DEFAULTS.maxRules} × ${MINE_DEFAULTS.proveSeconds} s / 2 = ` +
+      `${formatDuration((MINE_DEFAULTS.maxRules * MINE_DEFAULTS.proveSeconds) / 2)}; a mine job passes an hour through larger budgets (e.g. --prove-seconds 120 with 60 rules on 2 cores in the worst case), ` +
+      'very large networks (per-piece cost grows with weights × layers) or hundreds of millions of samples.',
+  );
   return lines;
 }

@@ -43,6 +43,11 @@ export function measuredJob(p: MeasuredPoint): CostJob {
   return p.job.kind === 'mine' ? { ...p.job, rules: p.rulesOut } : p.job;
 }
 
+/** Whether some rule of the job's table was proven or left unknown (not every rule refuted). */
+export function holds(p: MeasuredPoint): boolean {
+  return (p.statuses['proven'] ?? 0) + (p.statuses['unknown'] ?? 0) > 0;
+}
+
 function need(what: string, count: number, min: number): void {
   if (count < min) throw new ToolError('COST_FIT_DATA', `fitCostModel: ${count} ${what}, expected at least ${min}`);
 }
@@ -54,8 +59,10 @@ function need(what: string, count: number, min: number): void {
  *  2. prove jobs: wall = proveStart + R·(perRule + perRuleWeight·W) + P·(perPiece +
  *     perPieceWeightLayer·W·L) with P the pieces measured over all rules;
  *  3. pieces of a hard rule: ln(maxPieces) = hardLog + hardGrowth·d, least squares over the
- *     prove jobs of the sweep over inputs (the rule with the most pieces that was not refuted);
- *  4. pieces per rule: P/R = easyPieces + hardShare·min(proveBoxes, hard pieces) over all prove jobs.
+ *     prove jobs of the sweep over inputs (the rule with the most pieces that was not refuted),
+ *     leaving out tables where a rule hit its budget (unknown), whose count is only a lower bound;
+ *  4. pieces per rule: P/R = easyPieces + hardShare·min(proveBoxes, hard pieces) over the prove
+ *     jobs with a rule that holds (proven or unknown).
  * Non-negative coefficients keep the estimate monotone in every size.
  *
  * @param points measured jobs (docs/scaling/scaling-data.json); not changed
@@ -75,13 +82,19 @@ export function fitCostModel(points: readonly MeasuredPoint[], source: string): 
     proofs.map(({ job: j, pieces, rulesOut }) => [1, rulesOut, rulesOut * j.weights, pieces!, pieces! * j.weights * j.layers]),
     proofs.map((p) => p.cpuSeconds),
   );
-  const hardPoints = proofs.filter((p) => p.sweep === 'inputs' && (p.maxPieces ?? 0) > 0);
+  // a table with an unknown rule hit its proof budget: its most pieces is a lower bound, left out
+  const hardPoints = proofs.filter((p) => p.sweep === 'inputs' && (p.maxPieces ?? 0) > 0 && !((p.statuses['unknown'] ?? 0) > 0));
   need('prove jobs of the inputs sweep with a rule not refuted', hardPoints.length, 2);
   const { a: hardLog, b: hardGrowth } = line(hardPoints.map((p) => p.job.inputs), hardPoints.map((p) => Math.log(p.maxPieces!)));
   const hard = (j: CostJob): number => Math.min(j.proveBoxes, Math.exp(hardLog + Math.max(0, hardGrowth) * j.inputs));
+  // Tables whose every rule was refuted at once say nothing about proofs that have to finish;
+  // fitting the pieces per rule to tables with rules that hold keeps the estimate on the side
+  // of a network worth proving (it overestimates tables refuted at once: docs/scaling.md).
+  const holding = proofs.filter(holds);
+  need('prove jobs with a rule proven or unknown', holding.length, 2);
   const [easyPieces, hardShare] = relativeFit(
-    proofs.map(({ job: j }) => [1, hard(j)]),
-    proofs.map((p) => p.pieces! / p.rulesOut),
+    holding.map(({ job: j }) => [1, hard(j)]),
+    holding.map((p) => p.pieces! / p.rulesOut),
   );
   return {
     source,

@@ -6,7 +6,7 @@
 export type { CostJob, CostJobKind, CostEstimate, CostModel, MeasuredPoint } from './cost-model.js';
 export { estimateSeconds } from './estimate-seconds.js';
 export { costWarning, formatDuration, DEFAULT_WARN_SECONDS } from './cost-warning.js';
-export { fitCostModel, measuredJob } from './fit-cost-model.js';
+export { fitCostModel, holds, measuredJob } from './fit-cost-model.js';
 export { nonnegativeLeastSquares } from './nonnegative-least-squares.js';
 export { COST_MODEL } from './cost-coefficients.js';
 export { networkSize } from './network-size.js';
