@@ -73,10 +73,10 @@ export async function runMine(args: MineArgs, io: CliIo): Promise<number> {
     jobs: positiveInt('jobs', args.jobs),
     repair: args.repair,
   };
+  const timeBudget = args['time-budget'] === undefined ? undefined : positiveNumber('time-budget', args['time-budget']);
   const scenario = loadScenario(resolve(io.cwd, String(args.scenario)));
   const modelOptions = { threads: positiveInt('threads', args.threads), ...(args.model ? { modelPath: resolve(io.cwd, args.model) } : {}) };
   const model = await loadModel(scenario, modelOptions);
-  const timeBudget = args['time-budget'] === undefined ? undefined : positiveNumber('time-budget', args['time-budget']);
   const progress = createProgress(io, args.quiet || args.json);
   try {
     // Scaling warning (docs/scaling.md): printed before work starts, even with --quiet.
