@@ -24,7 +24,7 @@ function timeChart(title: string, rows: object[], x: { field: string; title: str
       x: { field: x.field, type: 'quantitative', title: x.title, scale: x.log ? { type: 'log' } : { zero: false } },
       y: { field: 'seconds', type: 'quantitative', title: 'CPU seconds (log)', scale: { type: 'log' } },
       color: { field: 'job', type: 'nominal', title: 'job', legend: { labelLimit: 320 } },
-      ...(dashBySeries ? { strokeDash: { field: 'series', type: 'nominal', title: 'series', legend: { labelLimit: 320, symbolType: 'stroke' } } } : {}),
+      ...(dashBySeries ? { shape: { field: 'series', type: 'nominal', title: 'series', legend: { labelLimit: 320 } }, detail: { field: 'series', type: 'nominal' } } : {}),
     },
   };
 }
