@@ -17,3 +17,14 @@ export function samplingOptions<T>(y: Argv<T>) {
     .option('jobs', { type: 'number', default: availableParallelism(), describe: 'worker threads for proving (default: the available cores)' })
     .option('threads', { type: 'number', default: 1, describe: 'onnxruntime intra-op threads' });
 }
+
+/**
+ * The time budget of a job (scaling warning): when the estimate of src/scale passes it, a
+ * warning goes to stderr before work starts; the job still runs. Not hidden by --quiet.
+ */
+export function timeBudgetOption<T>(y: Argv<T>) {
+  return y.option('time-budget', {
+    type: 'number',
+    describe: 'seconds you mean to wait: warn on stderr before starting when the estimate is longer (default: warn past 1 hour)',
+  });
+}
