@@ -1,3 +1,4 @@
+import { TIME_BUDGET_OPTION } from './time-budget.js';
 import { availableParallelism } from 'node:os';
 import type { Argv } from 'yargs';
 
@@ -23,8 +24,5 @@ export function samplingOptions<T>(y: Argv<T>) {
  * warning goes to stderr before work starts; the job still runs. Not hidden by --quiet.
  */
 export function timeBudgetOption<T>(y: Argv<T>) {
-  return y.option('time-budget', {
-    type: 'number',
-    describe: 'seconds you mean to wait: warn on stderr before starting when the estimate is longer (default: warn past 1 hour)',
-  });
+  return y.option('time-budget', TIME_BUDGET_OPTION);
 }

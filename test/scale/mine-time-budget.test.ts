@@ -12,7 +12,7 @@ describe('specula mine --time-budget', () => {
     // a budget of a millisecond: no estimate (it includes starting the process) fits in it
     const code = await main(['mine', scenarioPath, '--out', 'run', '--quiet', '--time-budget', '0.001', ...SMALL], io);
     expect(code).toBe(0);
-    expect(io.err()).toMatch(/^warning: this mine job is estimated to take about \d+ s \(sampling and checking \d+ s\), over the time budget of 0 s; it runs anyway/);
+    expect(io.err()).toMatch(/^specula: warning: this mine job is estimated to take about \d+ s \(sampling and checking \d+ s\), over the time budget of 0 s; it runs anyway/);
     expect(io.out()).toBe('');
   });
 
@@ -28,5 +28,28 @@ describe('specula mine --time-budget', () => {
     const io = capture(dir);
     expect(await main(['mine', scenarioPath, '--time-budget', '-5', ...SMALL], io)).toBe(2);
     expect(io.err()).toContain('--time-budget');
+  });
+});
+
+describe('specula check and prove --time-budget', () => {
+  it('check warns before it starts when the budget is too short, and still checks', async () => {
+    const { dir, scenarioPath } = writeBoxScenario(boxNetwork2d());
+    const io = capture(dir);
+    expect(await main(['mine', scenarioPath, '--out', 'run', '--quiet', ...SMALL], io)).toBe(0);
+    const checkIo = capture(dir);
+    const code = await main(['check', scenarioPath, 'run/rules.json', '--out', 'checked', '--quiet', '--no-prove', '--no-report', '--check-samples', '500', '--time-budget', '0.001'], checkIo);
+    expect([0, 1]).toContain(code);
+    expect(checkIo.err()).toMatch(/^specula: warning: this check job is estimated to take about \d+ s .*over the time budget of 0 s; it runs anyway/);
+  });
+
+  it('prove warns before it starts when the budget is too short, and is silent with a generous one', async () => {
+    const { dir, scenarioPath } = writeBoxScenario(boxNetwork2d());
+    expect(await main(['mine', scenarioPath, '--out', 'run', '--quiet', ...SMALL], capture(dir))).toBe(0);
+    const short = capture(dir);
+    expect(await main(['prove', 'run', '--quiet', '--jobs', '1', '--time-budget', '0.001'], short)).toBe(0);
+    expect(short.err()).toMatch(/^specula: warning: this prove job is estimated to take about \d+ s .*proving .*over the time budget of 0 s/);
+    const generous = capture(dir);
+    expect(await main(['prove', 'run', '--quiet', '--jobs', '1', '--time-budget', '86400'], generous)).toBe(0);
+    expect(generous.err()).toBe('');
   });
 });

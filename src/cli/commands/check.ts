@@ -18,7 +18,8 @@ import { createProgress } from '../progress.js';
 import { EXIT } from '../exit-codes.js';
 import { MINE_DEFAULTS } from './mine.js';
 import { SHARD_OPTION, shardDone } from './merge.js';
-import { itemsSha256, makePartial, selectShard, shardSpec, writePartial, type ShardSpec } from '../../shard/index.js';
+import { itemsSha256, makePartial, selectShard, shardIndices, shardSpec, writePartial, type ShardSpec } from '../../shard/index.js';
+import { TIME_BUDGET_OPTION, timeBudgetOf, warnIfLong } from '../time-budget.js';
 
 export function checkBuilder<T>(y: Argv<T>) {
   return commonOptions(samplingOptions(y))
@@ -35,6 +36,7 @@ export function checkBuilder<T>(y: Argv<T>) {
     .option('reference', { type: 'string', describe: 'reference lookup table (CSV: one column per input, one advisory column) to compare at its grid points' })
     .option('min-agreement', { type: 'number', default: 1, describe: 'with --reference: exit 1 when the share of agreeing grid points is below this (0..1)' })
     .option('shard', SHARD_OPTION)
+    .option('time-budget', TIME_BUDGET_OPTION)
     .example('$0 check scenarios/survey-boat/scenario.json scenarios/survey-boat/expectations.rules', 'check expert expectations on the scenario\'s model')
     .example('$0 check scenario.json runs/accepted/rules.json --model retrained.onnx', 'check an accepted table on a retrained model')
     .example('$0 check scenario.json --reference table.csv --min-agreement 0.99', 'compare the network with a lookup table at its grid points')
@@ -134,6 +136,10 @@ export async function runCheck(args: CheckArgs, io: CliIo): Promise<number> {
   const model = await loadModel(scenario, { threads: positiveInt('threads', args.threads), ...(args.model ? { modelPath: resolve(io.cwd, args.model) } : {}) });
   const progress = createProgress(io, args.quiet || args.json);
   try {
+    if (source) {
+      const rules = shard ? shardIndices(source.rules.length, shard).length : source.rules.length;
+      warnIfLong(io, { kind: 'check', scenario, model, samples: 0, fidelitySamples: 0, rules, ...settings }, timeBudgetOf(args['time-budget']));
+    }
     if (shard && source) {
       const written = await checkShard(scenario, model, source, settings, shard, { out: resolve(io.cwd, String(args.out)), report: args.report }, progress);
       progress.stop();

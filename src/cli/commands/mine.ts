@@ -1,4 +1,3 @@
-import { availableParallelism } from 'node:os';
 import { join, relative, resolve } from 'node:path';
 import type { Argv } from 'yargs';
 import { loadScenario } from '../../scenario/index.js';
@@ -10,7 +9,7 @@ import { UsageError } from '../../errors.js';
 import { positiveInt, positiveNumber, shareBelowOne, timestamp } from '../option-checks.js';
 import type { CliIo } from '../io.js';
 import { commonOptions, samplingOptions, timeBudgetOption } from '../options.js';
-import { costWarning, networkSizeOfModel } from '../../scale/index.js';
+import { timeBudgetOf, warnIfLong } from '../time-budget.js';
 import { createProgress } from '../progress.js';
 import { EXIT } from '../exit-codes.js';
 
@@ -73,19 +72,13 @@ export async function runMine(args: MineArgs, io: CliIo): Promise<number> {
     jobs: positiveInt('jobs', args.jobs),
     repair: args.repair,
   };
-  const timeBudget = args['time-budget'] === undefined ? undefined : positiveNumber('time-budget', args['time-budget']);
+  const timeBudget = timeBudgetOf(args['time-budget']);
   const scenario = loadScenario(resolve(io.cwd, String(args.scenario)));
   const modelOptions = { threads: positiveInt('threads', args.threads), ...(args.model ? { modelPath: resolve(io.cwd, args.model) } : {}) };
   const model = await loadModel(scenario, modelOptions);
   const progress = createProgress(io, args.quiet || args.json);
   try {
-    // Scaling warning (docs/scaling.md): printed before work starts, even with --quiet.
-    const warning = costWarning({
-      kind: 'mine', inputs: scenario.inputs.length, ...networkSizeOfModel(model),
-      samples: settings.budget, fidelitySamples: settings.fidelitySamples, checkSamples: settings.checkSamples, rules: settings.maxRules,
-      prove: settings.prove, proveBoxes: settings.proveBoxes, proveSeconds: settings.proveSeconds, jobs: Math.min(settings.jobs, availableParallelism()),
-    }, timeBudget);
-    if (warning) io.stderr(warning + '\n');
+    warnIfLong(io, { kind: 'mine', scenario, model, samples: settings.budget, rules: settings.maxRules, ...settings }, timeBudget);
     const table = await mine(scenario, model, settings, progress);
     progress.stop();
     const out = resolve(io.cwd, args.out ?? join('runs', `${scenario.name}-${timestamp(new Date())}`));

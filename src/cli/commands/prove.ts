@@ -16,6 +16,7 @@ import { MINE_DEFAULTS } from './mine.js';
 import { SHARD_OPTION, shardDone } from './merge.js';
 import { itemsSha256, makePartial, selectShard, shardSpec, writePartial } from '../../shard/index.js';
 import { toolVersion } from '../../version.js';
+import { TIME_BUDGET_OPTION, timeBudgetOf, warnIfLong } from '../time-budget.js';
 import { createHash } from 'node:crypto';
 
 export function proveBuilder<T>(y: Argv<T>) {
@@ -29,6 +30,7 @@ export function proveBuilder<T>(y: Argv<T>) {
     .option('threads', { type: 'number', default: 1, describe: 'onnxruntime intra-op threads' })
     .option('jobs', { type: 'number', default: availableParallelism(), describe: 'worker threads for proving (default: the available cores)' })
     .option('shard', SHARD_OPTION)
+    .option('time-budget', TIME_BUDGET_OPTION)
     .option('out', { type: 'string', describe: 'with --shard: folder for the partial result (the run folder itself is not changed)' })
     .example('$0 prove runs/demo', 're-prove the rules of runs/demo and rewrite its files')
     .example('$0 prove runs/demo --shard 1/4 --out runs/demo/parts', 'part 1 of 4 of the rules; then: $0 merge runs/demo/parts --out runs/demo')
@@ -48,6 +50,7 @@ type ProveArgs = {
   out?: string | undefined;
   json: boolean;
   quiet: boolean;
+  'time-budget'?: number | undefined;
 };
 
 /** `specula prove RUN_DIR`: (re)proves the rules of a run and rewrites its files atomically. */
@@ -82,6 +85,7 @@ export async function runProve(args: ProveArgs, io: CliIo): Promise<number> {
       checkSamples: numberSetting(table.manifest.settings['checkSamples'], MINE_DEFAULTS.checkSamples),
       confidence: numberSetting(table.manifest.settings['confidence'], 0.95),
     };
+    warnIfLong(io, { kind: 'prove', scenario, model, samples: 0, fidelitySamples: 0, rules: table.rules.length, prove: true, ...settings }, timeBudgetOf(args['time-budget']));
     const settled = await settleTable(table, scenario, model, settings, progress);
     if (shard) {
       progress.stop();
