@@ -2,12 +2,12 @@ import type { Model, Rule, RuleTable, Scenario, Tree } from '../types.js';
 import { sampleDomain } from '../sampling/index.js';
 import { learnTree, pruneSequence } from '../learn/index.js';
 import { mergeRules, roundThresholds, treeToRules } from '../rules/index.js';
-import { checkRules, measureFidelity } from '../check/index.js';
 import { toolVersion } from '../version.js';
 import { settleTable } from './settle-table.js';
 import { recountTree } from './recount-tree.js';
 import { relabelRules } from './relabel-rules.js';
 import type { MineHooks } from './mine-hooks.js';
+import { modelJobs, type ModelJobs } from './model-jobs.js';
 
 export type { MineHooks } from './mine-hooks.js';
 
@@ -34,7 +34,7 @@ export interface MineSettings {
   /** Proof budget per rule: pieces bounded, and seconds as a safety net. */
   readonly proveBoxes: number;
   readonly proveSeconds: number;
-  /** Worker threads for proving (1: in this thread). */
+  /** Worker threads for sampling, checking, fidelity and proving (1: in this thread); never changes the result. */
   readonly jobs: number;
   /** Split refuted and unknown rules into proven readable sub-rules. */
   readonly repair: boolean;
@@ -72,10 +72,22 @@ export function pickPrunedTree(tree: Tree, scenario: Scenario, maxRules: number)
  * checks every rule on dense samples and measures the table's fidelity.
  */
 export async function mine(scenario: Scenario, model: Model, settings: MineSettings, hooks: MineHooks = {}): Promise<RuleTable> {
+  const jobs = modelJobs(scenario, model, settings.jobs);
+  let table: RuleTable;
+  try {
+    table = await mineTable(scenario, model, settings, hooks, jobs);
+  } finally {
+    await jobs.close();
+  }
+  return settings.prove ? settleTable(table, scenario, model, settings, hooks) : table;
+}
+
+/** The table before proofs: sampling, learning, rules, checks and fidelity, the model's work on `jobs`. */
+async function mineTable(scenario: Scenario, model: Model, settings: MineSettings, hooks: MineHooks, jobs: ModelJobs): Promise<RuleTable> {
   const d = scenario.inputs.length;
   const k = scenario.advisories.length;
   hooks.onStage?.('sampling');
-  const samples = await sampleDomain(scenario.inputs, model.evaluate, {
+  const samples = await sampleDomain(scenario.inputs, jobs.labeller, {
     seed: settings.seed,
     budget: settings.budget,
     boundaryShare: settings.boundaryShare,
@@ -98,25 +110,25 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
     decision: scenario.decision,
     onProgress: (done: number, total: number) => hooks.onProgress?.('checking', done, total),
   };
-  let checked = await checkRules(rules, scenario.inputs, model.evaluate, checkOptions);
+  let checked = await jobs.checkRules(rules, checkOptions);
   // A rule whose advisory the network gives on less than half of its box gets the advisory it
   // gives most often there, and is checked again.
   const wrong = checked.flatMap((c, i) => (c.evidence.violations * 2 > c.evidence.samples ? [i] : []));
   if (wrong.length > 0) {
     const relabelled = await relabelRules(rules, wrong, k, model.evaluate, settings.seed);
-    const again = await checkRules(wrong.map((i) => relabelled[i]!), scenario.inputs, model.evaluate, checkOptions);
+    const again = await jobs.checkRules(wrong.map((i) => relabelled[i]!), checkOptions);
     checked = checked.map((c, i) => (wrong.includes(i) ? again[wrong.indexOf(i)]! : c));
     rules = relabelled;
   }
   hooks.onStage?.('fidelity');
-  const fidelity = await measureFidelity(rules, scenario.inputs, model.evaluate, {
+  const fidelity = await jobs.measureFidelity(rules, {
     seed: settings.seed,
     samples: settings.fidelitySamples,
     confidence: settings.confidence,
     advisories: k,
   });
   const { tool, version } = toolVersion();
-  const table: RuleTable = {
+  return {
     manifest: {
       tool,
       toolVersion: version,
@@ -140,7 +152,6 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
     rules: checked,
     fidelity,
   };
-  return settings.prove ? settleTable(table, scenario, model, settings, hooks) : table;
 }
 
 function withoutJobs(s: MineSettings): Record<string, number | boolean> {

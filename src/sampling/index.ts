@@ -3,6 +3,7 @@
  * decision boundaries -> SampleSet; also the box samplers the checker uses.
  */
 export { sampleDomain, BOUNDARY_SHARE_DEFAULT, BATCH_SIZE_DEFAULT, REFINE_ROUNDS, type SampleDomainOptions } from './sample-domain.js';
+export { evaluatorLabeller, type RowLabeller, type SampleArrays } from './row-labeller.js';
 export { uniformInBox } from './uniform-in-box.js';
 export { boxSurfacePoints } from './box-surface-points.js';
 export { createRng, createRng32, uniform32Rng, type BulkRng, type Rng } from './rng.js';

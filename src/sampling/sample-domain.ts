@@ -5,6 +5,7 @@ import { gridCellsPerAxis, gridInPlace } from './grid.js';
 import { refineInPlace } from './refine.js';
 import type { ActiveSamples } from './refine-passes.js';
 import { createRng32 } from './rng.js';
+import { evaluatorLabeller, type RowLabeller } from './row-labeller.js';
 import { SOBOL_MAX_DIMENSION, sobolInPlace } from './sobol.js';
 
 /** Share of the budget spent near boundaries by default; the rest covers the box evenly. */
@@ -23,7 +24,7 @@ export interface SampleDomainOptions {
   readonly budget: number;
   /** Share of the budget for boundary refinement, in [0, 1); default BOUNDARY_SHARE_DEFAULT. */
   readonly boundaryShare?: number;
-  /** Rows per evaluator call; default BATCH_SIZE_DEFAULT. */
+  /** Rows per evaluator (labeller) call; default BATCH_SIZE_DEFAULT. */
   readonly batchSize?: number;
   /** Called after every evaluated batch with samples done and the budget. */
   readonly onProgress?: (done: number, total: number) => void;
@@ -39,17 +40,19 @@ function fail(message: string): never {
  * refinement near the boundaries between advisories (see refine.ts) for the rest. Points are
  * in scenario units (the model normalises). Deterministic: one seeded generator (`createRng32`:
  * 32-bit draws, scaled into cells and boxes) drives every choice in a fixed order, and batches
- * are evaluated in order. Nothing of the sample set's size is allocated besides the result:
+ * are labelled as fixed ranges of rows. Nothing of the sample set's size is allocated besides the result:
  * fresh memory is slow to fault in on small virtual machines (docs/sampling.md).
  * @param inputs the scenario's inputs (their [min, max] ranges form the box; not changed)
- * @param evaluate the controller, called with at most batchSize rows at a time
+ * @param source the controller: an evaluator, called with at most batchSize rows at a time, or
+ *   a labeller that also provides the arrays (worker threads label batches in parallel; the
+ *   result is the same bit for bit, as the batches are the same)
  * @param options seed, budget, boundary share, batch size, progress callback
  * @returns exactly `budget` labelled samples
  * @throws ToolError (`SAMPLING_OPTIONS`, `SAMPLING_DIMENSION`, `SAMPLING_EVALUATOR`,
  *   `SAMPLING_SEED`) for bad options, too many inputs, or an evaluator returning too few rows;
  *   whatever the evaluator throws
  */
-export async function sampleDomain(inputs: readonly InputSpec[], evaluate: Evaluator, options: SampleDomainOptions): Promise<SampleSet> {
+export async function sampleDomain(inputs: readonly InputSpec[], source: Evaluator | RowLabeller, options: SampleDomainOptions): Promise<SampleSet> {
   const { seed, budget } = options;
   const boundaryShare = options.boundaryShare ?? BOUNDARY_SHARE_DEFAULT;
   const batchSize = options.batchSize ?? BATCH_SIZE_DEFAULT;
@@ -67,26 +70,43 @@ export async function sampleDomain(inputs: readonly InputSpec[], evaluate: Evalu
   });
   const box: Box = inputs.map((input) => [input.min, input.max] as const);
   const rng = createRng32(seed);
-  const x = new Float64Array(budget * d);
-  const advisory = new Int32Array(budget);
-  const margin = new Float32Array(budget);
+  const labeller = typeof source === 'function' ? evaluatorLabeller(source, d) : source;
+  const arrays = labeller.allocate(budget, d);
+  const { x, advisory, margin } = arrays;
   let filled = 0;
   // the largest advisory seen, for the width of refinement's cell tables
   let maxAdvisory = 0;
 
-  /** Evaluates rows [filled, filled + count) of x, already written, in batches. */
+  /**
+   * Labels rows [filled, filled + count) of x, already written, in batches; up to the
+   * labeller's concurrency of them at once (worker threads), each finished batch taken in
+   * order, so progress and results do not depend on how many run at once.
+   */
   async function evaluateNew(count: number): Promise<void> {
-    for (let s = 0; s < count; s += batchSize) {
-      const rows = Math.min(batchSize, count - s);
-      const ev = await evaluate(x.subarray(filled * d, (filled + rows) * d), rows);
-      if (ev.advisory.length < rows || ev.margin.length < rows) {
-        throw new ToolError('SAMPLING_EVALUATOR', `sampleDomain: evaluator returned ${ev.advisory.length} advisories and ${ev.margin.length} margins for ${rows} rows`);
+    const start = filled;
+    const running: Array<Promise<void>> = [];
+    let next = 0;
+    const launch = (): void => {
+      const rows = Math.min(batchSize, count - next);
+      const batch = labeller.labelInPlace(arrays, start + next, rows);
+      // handled now, awaited in turn below: a later batch failing first is not an unhandled rejection
+      batch.catch(() => undefined);
+      running.push(batch);
+      next += rows;
+    };
+    try {
+      while (next < count && running.length < labeller.concurrency) launch();
+      while (running.length > 0) {
+        await running.shift();
+        const rows = Math.min(batchSize, count - (filled - start));
+        maxAdvisory = Math.max(maxAdvisory, largest(advisory, filled, filled + rows));
+        filled += rows;
+        options.onProgress?.(filled, budget);
+        if (next < count) launch();
       }
-      advisory.set(ev.advisory.length === rows ? ev.advisory : ev.advisory.subarray(0, rows), filled);
-      maxAdvisory = Math.max(maxAdvisory, largest(advisory, filled, filled + rows));
-      margin.set(ev.margin.length === rows ? ev.margin : ev.margin.subarray(0, rows), filled);
-      filled += rows;
-      options.onProgress?.(filled, budget);
+    } finally {
+      // a failed batch: the others still running must settle before the error goes up
+      await Promise.allSettled(running);
     }
   }
 
