@@ -1,12 +1,12 @@
 import { ToolError } from '../errors.js';
 import type { Evaluator, InputSpec, SampleSet } from '../types.js';
 import type { Box } from './check-box.js';
-import { gridCellsPerAxis, gridInPlace } from './grid.js';
 import { refineInPlace } from './refine.js';
 import type { ActiveSamples } from './refine-passes.js';
 import { createRng32 } from './rng.js';
 import { evaluatorLabeller, type RowLabeller } from './row-labeller.js';
-import { SOBOL_MAX_DIMENSION, sobolInPlace } from './sobol.js';
+import { SOBOL_MAX_DIMENSION } from './sobol.js';
+import { spaceFillingRows } from './space-filling.js';
 
 /** Share of the budget spent near boundaries by default; the rest covers the box evenly. */
 export const BOUNDARY_SHARE_DEFAULT = 0.6;
@@ -14,8 +14,7 @@ export const BOUNDARY_SHARE_DEFAULT = 0.6;
 export const BATCH_SIZE_DEFAULT = 16_384;
 /** Refinement rounds: each sees the labels of the rounds before it, so boxes can shrink. */
 export const REFINE_ROUNDS = 4;
-/** Share of the space-filling part given to the jittered grid; Sobol points take the rest. */
-export const GRID_SHARE = 0.5;
+export { GRID_SHARE } from './space-filling.js';
 
 export interface SampleDomainOptions {
   /** Seed of every random choice: the same seed gives the same SampleSet. */
@@ -78,16 +77,18 @@ export async function sampleDomain(inputs: readonly InputSpec[], source: Evaluat
   let maxAdvisory = 0;
 
   /**
-   * Labels rows [filled, filled + count) of x, already written, in batches; up to the
-   * labeller's concurrency of them at once (worker threads), each finished batch taken in
+   * Labels rows [filled, filled + count) of x in batches, each written first by `write` when
+   * given (else already written); up to the labeller's concurrency of them at once (worker
+   * threads label while this thread writes the next batch), each finished batch taken in
    * order, so progress and results do not depend on how many run at once.
    */
-  async function evaluateNew(count: number): Promise<void> {
+  async function evaluateNew(count: number, write?: (from: number, rows: number) => void): Promise<void> {
     const start = filled;
     const running: Array<Promise<void>> = [];
     let next = 0;
     const launch = (): void => {
       const rows = Math.min(batchSize, count - next);
+      write?.(start + next, rows);
       const batch = labeller.labelInPlace(arrays, start + next, rows);
       // handled now, awaited in turn below: a later batch failing first is not an unhandled rejection
       batch.catch(() => undefined);
@@ -113,13 +114,7 @@ export async function sampleDomain(inputs: readonly InputSpec[], source: Evaluat
   // points are written straight into x: no intermediate arrays (fresh memory is slow to fault in)
   const refineTotal = Math.floor(budget * boundaryShare);
   const initial = budget - refineTotal;
-  // a grid of one cell per axis is just one random point: leave it all to Sobol then
-  const gridBudget = gridCellsPerAxis(Math.floor(initial * GRID_SHARE), d) >= 2 ? Math.floor(initial * GRID_SHARE) : 0;
-  const gridCount = gridInPlace(box, gridBudget, rng, x, 0);
-  const sobolCount = initial - gridCount;
-  sobolInPlace(sobolCount, d, rng, x, gridCount);
-  toBoxInPlace(box, x, gridCount, initial);
-  await evaluateNew(initial);
+  await evaluateNew(initial, spaceFillingRows(box, initial, rng, x));
   // each round looks at the candidates (samples in mixed cells, near-ties) and new points of the
   // round before (all samples at first); two work spaces take turns: one holds the candidates
   // being read, the other the new ones
@@ -136,17 +131,6 @@ export async function sampleDomain(inputs: readonly InputSpec[], source: Evaluat
     active = { candidates, from, to: filled };
   }
   return { d, n: budget, x, advisory, margin, seed };
-}
-
-/** Maps rows [from, to) of x from the unit cube to the box, in place (Sobol points arrive in [0, 1)^d). */
-function toBoxInPlace(box: Box, x: Float64Array, from: number, to: number): void {
-  const d = box.length;
-  const lo = Float64Array.from(box, (b) => b[0]);
-  const width = Float64Array.from(box, (b) => b[1] - b[0]);
-  for (let i = from * d, end = to * d, j = 0; i < end; i++) {
-    x[i] = lo[j]! + x[i]! * width[j]!;
-    if (++j === d) j = 0;
-  }
 }
 
 /** The largest of values[from .. to) (0 when empty). */
