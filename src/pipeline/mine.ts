@@ -87,12 +87,13 @@ async function mineTable(scenario: Scenario, model: Model, settings: MineSetting
   const d = scenario.inputs.length;
   const k = scenario.advisories.length;
   hooks.onStage?.('sampling');
+  // only x and the advisories are kept: the margins (4 bytes a sample) are free before learning
   const samples = await sampleDomain(scenario.inputs, jobs.labeller, {
     seed: settings.seed,
     budget: settings.budget,
     boundaryShare: settings.boundaryShare,
     onProgress: (done, total) => hooks.onProgress?.('sampling', done, total),
-  });
+  }).then(({ x, advisory, n }) => ({ x, advisory, n }));
   hooks.onStage?.('learning');
   const data = { x: samples.x, n: samples.n, d, labels: samples.advisory, classes: k };
   const full = learnTree(data, { minLeaf: settings.minLeaf });

@@ -23,6 +23,8 @@ export interface WorkerPoolOptions {
 /** Threads that run tasks of type T to results of type R (see serveTasks for the worker side). */
 export interface WorkerPool<T, R> {
   readonly size: number;
+  /** Resolves once every worker has started (tasks may be given before: they wait). */
+  ready(): Promise<void>;
   /** Runs one task on the next free worker; rejects with the task's (revived) error. */
   run(task: T): Promise<R>;
   /** Stops every worker; tasks still waiting are rejected. */
@@ -54,6 +56,8 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
   let nextId = 0;
   let failure: Error | undefined;
   let closing = false;
+  let started = 0;
+  const waiting: Array<Pending<void>> = [];
 
   const fail = (error: Error): void => {
     if (failure || closing) return;
@@ -61,6 +65,7 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
     queue.length = 0;
     for (const p of pending.values()) p.reject(error);
     pending.clear();
+    for (const w of waiting.splice(0)) w.reject(error);
     for (const s of slots) void s.worker.terminate();
   };
 
@@ -80,6 +85,7 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
     slot.worker.on('message', (m: ReplyMessage<R>) => {
       if (m.kind === 'ready') {
         slot.ready = true;
+        if (++started === options.size) for (const w of waiting.splice(0)) w.resolve();
       } else if (m.kind === 'failed' && m.id === undefined) {
         fail(reviveError(m.error));
         return;
@@ -99,6 +105,11 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
 
   return {
     size: options.size,
+    ready(): Promise<void> {
+      if (failure) return Promise.reject(failure);
+      if (started === options.size) return Promise.resolve();
+      return new Promise<void>((resolve, reject) => waiting.push({ resolve, reject }));
+    },
     run(task: T): Promise<R> {
       if (failure) return Promise.reject(failure);
       if (closing) return Promise.reject(new Error(`worker pool ${options.name} is closed`));
@@ -115,6 +126,7 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
       const stopped = new Error(`worker pool ${options.name} was closed`);
       for (const p of pending.values()) p.reject(stopped);
       pending.clear();
+      for (const w of waiting.splice(0)) w.reject(stopped);
       queue.length = 0;
       await Promise.all(slots.map((s) => s.worker.terminate()));
     },
