@@ -4,9 +4,10 @@
  * of samples with --jobs 1 (this thread) and --jobs 2 (two model workers), measured side by
  * side (interleaved repetitions) in one process. Run: `npx tsx bench/run-all.ts sampling`.
  */
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, loadavg, tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import * as ort from 'onnxruntime-node';
 import { loadModel, writeMlpOnnx, type DenseLayer } from '../src/model/index.js';
 import { modelJobs } from '../src/pipeline/model-jobs.js';
@@ -77,6 +78,26 @@ function freshArrays(samples: number): number {
   for (let i = 0; i < samples; i++) margin[i] = i;
   const ms = performance.now() - t0;
   return ms;
+}
+
+/**
+ * Sample counts of the memory runs: `specula mine` on survey-boat without proofs or report, in a
+ * child process of the built CLI (dist/), peak RSS from GNU time. 10,000,000 takes minutes
+ * here: BENCH_MEMORY_SIZES=1000000,10000000 adds it.
+ */
+const MEMORY_SIZES = (process.env.BENCH_MEMORY_SIZES ?? '1000000').split(',').map(Number).filter((n) => n > 0);
+
+/** Peak RSS (MB) and wall seconds of one `specula mine` run, or undefined without dist/ or GNU time. */
+function mineMemory(samples: number, jobs: number): { mb: number; seconds: number } | undefined {
+  const bin = resolve('dist/src/cli/bin.js');
+  if (!existsSync(bin) || !existsSync('/usr/bin/time')) return undefined;
+  const out = mkdtempSync(join(tmpdir(), 'specula-bench-mem-'));
+  const args = ['-f', '%M %e', process.execPath, bin, 'mine', resolve('scenarios/survey-boat/scenario.json'), '--samples', String(samples), '--no-prove', '--no-report', '--quiet', '--jobs', String(jobs), '--out', out];
+  const r = spawnSync('/usr/bin/time', args, { encoding: 'utf8' });
+  rmSync(out, { recursive: true, force: true });
+  const m = /(\d+) ([\d.]+)\s*$/.exec(r.stderr);
+  if (r.status !== 0 || !m) throw new Error(`mine --samples ${samples} failed: ${r.stderr}`);
+  return { mb: Number(m[1]) / 1024, seconds: Number(m[2]) };
 }
 
 export async function run(): Promise<string> {
@@ -163,6 +184,21 @@ export async function run(): Promise<string> {
   await model.close();
   rmSync(dir, { recursive: true, force: true });
 
+  const memory = MEMORY_SIZES.flatMap((n) =>
+    [1, 2].map((jobs) => {
+      const m = mineMemory(n, jobs);
+      return m ? `| ${n.toLocaleString('en')} | ${jobs} | ${m.mb.toFixed(0)} | ${((m.mb * 1048576) / n).toFixed(0)} | ${m.seconds.toFixed(1)} |` : '';
+    }),
+  ).filter((r) => r !== '');
+  const memoryText = memory.length === 0 ? 'Memory: not measured (needs `npm run build` and GNU time).' : `Memory of whole runs: \`specula mine scenarios/survey-boat/scenario.json --samples N --no-prove
+--no-report\` (built CLI, child process), peak resident set size from GNU time (\`%M\`). The
+sample set takes ${8 * D + 8} bytes a sample (x as float64, advisory, margin); docs/sampling.md says what else
+the peak holds.
+
+| samples | --jobs | peak RSS (MB) | bytes a sample | wall (s) |
+| ---: | ---: | ---: | ---: | ---: |
+${memory.join('\n')}
+`;
   return `## Sampling
 
 Same model every way: a ${D}-input, ${LAYERS}×${HIDDEN} ReLU network with ${K} outputs (seeded
@@ -195,5 +231,6 @@ Measured: ${verdicts.join('; ')}. "First touch" allocates arrays the size of the
 (x, advisory, margin: ${8 * D + 8} bytes a sample) and writes each element once: fresh memory faults in
 at about 4–5 ms/MB on this VM (docs/sampling.md), a cost any sampler that returns new arrays
 pays on top of the network. Advisories seen in the last sample set: ${advisoriesSeen} of ${K}.
-`;
+
+${memoryText}`;
 }
