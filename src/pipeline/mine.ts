@@ -49,18 +49,30 @@ function rulesOf(tree: Tree, scenario: Scenario): Rule[] {
 /**
  * Picks the largest tree of the minimal cost-complexity pruning sequence (Breiman et al. 1984,
  * ch. 3) whose merged rule table has at most `maxRules` rules. The sequence is ordered from the
- * full tree to the root; merged counts fall (almost) monotonically along it, so a binary search
- * finds the boundary and a short backward scan guards against small non-monotone steps.
+ * full tree to the root; merged counts fall (almost) monotonically along it. Counting means
+ * merging a tree's rules, which costs more than linear time in its leaves, so the search starts
+ * at the small end: the first tree with at most `maxRules` leaves fits without merging; from
+ * there it steps towards larger trees in doubling steps until one does not fit, then halves the
+ * gap. Where counts fall monotonically this finds the same tree as a search from the full tree,
+ * while merging only trees a few times the rule budget (a search from the full tree merged
+ * every large tree it probed: 40 % of a 1,000,000-sample run, quadratic in the samples).
  */
 export function pickPrunedTree(tree: Tree, scenario: Scenario, maxRules: number): Tree {
   const seq = pruneSequence(tree);
-  const count = (i: number): number => rulesOf(seq[i]!.tree, scenario).length;
-  let lo = 0;
-  let hi = seq.length - 1;
-  if (count(lo) <= maxRules) return seq[lo]!.tree;
+  const fits = (i: number): boolean => seq[i]!.leaves <= maxRules || rulesOf(seq[i]!.tree, scenario).length <= maxRules;
+  // hi: a tree that fits; lo: a larger one that does not (-1: none found yet)
+  let hi = seq.findIndex((step) => step.leaves <= maxRules);
+  if (hi < 0) hi = seq.length - 1;
+  let lo = -1;
+  for (let step = 1; lo < 0 && hi > 0; step *= 2) {
+    const i = Math.max(0, hi - step);
+    if (fits(i)) hi = i;
+    else lo = i;
+  }
+  if (lo < 0) return seq[hi]!.tree;
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
-    if (count(mid) <= maxRules) hi = mid;
+    if (fits(mid)) hi = mid;
     else lo = mid;
   }
   return seq[hi]!.tree;
