@@ -23,6 +23,8 @@ export interface WorkerPoolOptions {
 /** Threads that run tasks of type T to results of type R (see serveTasks for the worker side). */
 export interface WorkerPool<T, R> {
   readonly size: number;
+  /** Number of workers started so far (ready for tasks). */
+  readonly started: number;
   /** Resolves once every worker has started (tasks may be given before: they wait). */
   ready(): Promise<void>;
   /** Runs one task on the next free worker; rejects with the task's (revived) error. */
@@ -105,6 +107,9 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
 
   return {
     size: options.size,
+    get started() {
+      return started;
+    },
     ready(): Promise<void> {
       if (failure) return Promise.reject(failure);
       if (started === options.size) return Promise.resolve();

@@ -29,6 +29,8 @@ describe('modelJobs', () => {
     const one = modelJobs(scenario, model, 1);
     const two = modelJobs(scenario, model, 2);
     try {
+      // both workers up first: every piece below then runs on a worker, none in this thread
+      await two.ready();
       // 7,300 samples in batches of 500 (model batch 1,000): many batches in flight at once
       const opts = { seed: 3, budget: 7_300, batchSize: 500 };
       const a = await sampleDomain(scenario.inputs, one.labeller, opts);
