@@ -38,7 +38,21 @@ export interface MineSettings {
   readonly jobs: number;
   /** Split refuted and unknown rules into proven readable sub-rules. */
   readonly repair: boolean;
+  /** Model workers only from this much network work on (default WORKER_MIN_EVALUATIONS); never changes the result. */
+  readonly workerMinEvaluations?: number;
 }
+
+/**
+ * Network evaluations of a run (samples, dense checks of up to maxRules rules, fidelity) below
+ * which mine keeps sampling, checks and fidelity in this thread whatever `jobs` says (proofs
+ * still use it). A model worker takes 0.3–1.5 s to start (onnxruntime and the model loaded;
+ * docs/performance.md, "Worker threads"), while 2,000,000 evaluations of the demo network take
+ * about a second on one thread: below that, two threads save less than their start-up costs
+ * (the demo — 200,000 samples, 56 rules, ~1.4 M evaluations — took 4.5–5.0 s end to end with
+ * --jobs 1 and 5.0–6.3 s with model and proof workers on this loaded 2-core machine). The
+ * results are the same either way.
+ */
+export const WORKER_MIN_EVALUATIONS = 2_000_000;
 
 
 /** Rules of a tree after merging same-advisory neighbours. */
@@ -84,7 +98,8 @@ export function pickPrunedTree(tree: Tree, scenario: Scenario, maxRules: number)
  * checks every rule on dense samples and measures the table's fidelity.
  */
 export async function mine(scenario: Scenario, model: Model, settings: MineSettings, hooks: MineHooks = {}): Promise<RuleTable> {
-  const jobs = modelJobs(scenario, model, settings.jobs);
+  const work = settings.budget + settings.maxRules * settings.checkSamples + settings.fidelitySamples;
+  const jobs = modelJobs(scenario, model, work >= (settings.workerMinEvaluations ?? WORKER_MIN_EVALUATIONS) ? settings.jobs : 1);
   let table: RuleTable;
   try {
     table = await mineTable(scenario, model, settings, hooks, jobs);
@@ -168,7 +183,7 @@ async function mineTable(scenario: Scenario, model: Model, settings: MineSetting
 }
 
 function withoutJobs(s: MineSettings): Record<string, number | boolean> {
-  const { jobs: _jobs, ...rest } = s;
+  const { jobs: _jobs, workerMinEvaluations: _min, ...rest } = s;
   return rest;
 }
 
