@@ -143,10 +143,18 @@ export async function run(): Promise<string> {
   let advisoriesSeen = 0;
   for (const samples of SIZES) {
     const times = { raw1: [] as number[], raw2: [] as number[], jobs1: [] as number[], jobs2: [] as number[], fresh: [] as number[] };
+    // CPU time of the process, every thread: raw on one thread, and sampleDomain with jobs 2
+    const cpu = { raw1: [] as number[], jobs2: [] as number[] };
+    const cpuOf = async (f: () => Promise<unknown>, into: number[]): Promise<void> => {
+      const c0 = process.cpuUsage();
+      await f();
+      const c = process.cpuUsage(c0);
+      into.push((c.user + c.system) / 1000);
+    };
     // one repetition runs every path once; the order rotates from one repetition to the next,
     // so that no path always pays for the garbage the one before it left
     const paths: Array<(r: number) => Promise<void>> = [
-      async () => void times.raw1.push(await rawRun(raw1, input, samples)),
+      async () => cpuOf(async () => void times.raw1.push(await rawRun(raw1, input, samples)), cpu.raw1),
       async () => void times.raw2.push(await rawRun(raw2, input, samples)),
       async (r) => {
         const t0 = performance.now();
@@ -155,9 +163,11 @@ export async function run(): Promise<string> {
         advisoriesSeen = new Set(set.advisory).size;
       },
       async (r) => {
-        const t0 = performance.now();
-        await sampleDomain(INPUTS, two.labeller, { seed: 100 + r, budget: samples });
-        times.jobs2.push(performance.now() - t0);
+        await cpuOf(async () => {
+          const t0 = performance.now();
+          await sampleDomain(INPUTS, two.labeller, { seed: 100 + r, budget: samples });
+          times.jobs2.push(performance.now() - t0);
+        }, cpu.jobs2);
       },
       async () => void times.fresh.push(freshArrays(samples)),
     ];
@@ -174,8 +184,11 @@ export async function run(): Promise<string> {
     const same2 = share(times.jobs2, times.raw2);
     verdicts.push(`${samples.toLocaleString('en')}: jobs 1 ${pc(same1)}, jobs 2 ${pc(same2)} of raw on as many cores`);
     const fresh = median(times.fresh.map((t, r) => t / times.raw1[r]!));
+    // raw's CPU time over jobs 2's (all threads) for the same samples: the share of its CPU
+    // time jobs 2 spends in the network, whatever cores the load leaves it
+    const efficiency = share(cpu.jobs2, cpu.raw1);
     rows.push(
-      `| ${samples.toLocaleString('en')} | ${m(times.raw1)} | ${m(times.raw2)} | **${m(times.jobs1)} (${pc(same1)})** | **${m(times.jobs2)} (${pc(same2)})** | ${pc(share(times.jobs2, times.raw1))} | ${pc(share(times.raw1, times.raw2))} | ${pc(fresh)} |`,
+      `| ${samples.toLocaleString('en')} | ${m(times.raw1)} | ${m(times.raw2)} | **${m(times.jobs1)} (${pc(same1)})** | **${m(times.jobs2)} (${pc(same2)})** | ${pc(share(times.jobs2, times.raw1))} | ${pc(share(times.raw1, times.raw2))} | ${pc(efficiency)} | ${pc(fresh)} |`,
     );
   }
   await raw1.release();
@@ -218,8 +231,8 @@ order rotating from one to the next: rates are medians, shares are medians of ea
 repetition's own ratio. One-minute load average when the benchmark started: ${loadAtStart.toFixed(1)} on
 ${cpus().length} cores (the machine is shared; ratios are the figures to compare).
 
-| samples | raw, 1 thread (M/s) | raw, 2 threads (M/s) | jobs 1 (M/s, % of raw 1 thread) | jobs 2 (M/s, % of raw 2 threads) | jobs 2, % of raw 1 thread | raw 1 thread, % of raw 2 threads | first touch of the result arrays, % of raw 1-thread time |
-| ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |
+| samples | raw, 1 thread (M/s) | raw, 2 threads (M/s) | jobs 1 (M/s, % of raw 1 thread) | jobs 2 (M/s, % of raw 2 threads) | jobs 2, % of raw 1 thread | raw 1 thread, % of raw 2 threads | CPU time: raw 1 thread / jobs 2 (all threads) | first touch of the result arrays, % of raw 1-thread time |
+| ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |
 ${rows.join('\n')}
 
 **Target** (design): sampling ≥ ${100 * TARGET_RATIO} % of raw batched onnxruntime throughput on the same
@@ -227,7 +240,9 @@ model. It is judged here on the same number of cores — jobs 1 against raw on o
 thread, jobs 2 against raw on two — because that ratio is what the sampler's own overhead
 costs: comparing jobs 2 with one-thread raw (the design's reference figure, measured on one
 thread) would credit the second core to the sampler. That column is shown for reference.
-Measured: ${verdicts.join('; ')}. "First touch" allocates arrays the size of the sample set
+Measured: ${verdicts.join('; ')}. The CPU-time column depends little on the load: it is the
+share of jobs 2's CPU time (every thread) that raw needs for the same number of samples, so
+twice it, in units of one-thread raw, bounds what jobs 2 can reach on two idle cores. "First touch" allocates arrays the size of the sample set
 (x, advisory, margin: ${8 * D + 8} bytes a sample) and writes each element once: fresh memory faults in
 at about 4–5 ms/MB on this VM (docs/sampling.md), a cost any sampler that returns new arrays
 pays on top of the network. Advisories seen in the last sample set: ${advisoriesSeen} of ${K}.
