@@ -87,7 +87,11 @@ function freshArrays(samples: number): number {
  */
 const MEMORY_SIZES = (process.env.BENCH_MEMORY_SIZES ?? '1000000').split(',').map(Number).filter((n) => n > 0);
 
-/** Peak RSS (MB) and wall seconds of one `specula mine` run, or undefined without dist/ or GNU time. */
+/** The stated memory bound of a 5-input mine run: this much, plus so many bytes a sample (docs/sampling.md). */
+const MEMORY_BOUND_MIB = 250;
+const MEMORY_BOUND_BYTES_PER_SAMPLE = 200;
+
+/** Peak RSS (MiB) and wall seconds of one `specula mine` run, or undefined without dist/ or GNU time. */
 function mineMemory(samples: number, jobs: number): { mb: number; seconds: number } | undefined {
   const bin = resolve('dist/src/cli/bin.js');
   if (!existsSync(bin) || !existsSync('/usr/bin/time')) return undefined;
@@ -197,10 +201,14 @@ export async function run(): Promise<string> {
   await model.close();
   rmSync(dir, { recursive: true, force: true });
 
+  let withinBound = true;
   const memory = MEMORY_SIZES.flatMap((n) =>
     [1, 2].map((jobs) => {
       const m = mineMemory(n, jobs);
-      return m ? `| ${n.toLocaleString('en')} | ${jobs} | ${m.mb.toFixed(0)} | ${((m.mb * 1048576) / n).toFixed(0)} | ${m.seconds.toFixed(1)} |` : '';
+      if (!m) return '';
+      const bound = MEMORY_BOUND_MIB + (MEMORY_BOUND_BYTES_PER_SAMPLE * n) / 1048576;
+      withinBound &&= m.mb <= bound;
+      return `| ${n.toLocaleString('en')} | ${jobs} | ${m.mb.toFixed(0)} | ${((m.mb * 1048576) / n).toFixed(0)} | ${bound.toFixed(0)} | ${m.seconds.toFixed(1)} |`;
     }),
   ).filter((r) => r !== '');
   const memoryText = memory.length === 0 ? 'Memory: not measured (needs `npm run build` and GNU time).' : `Memory of whole runs: \`specula mine scenarios/survey-boat/scenario.json --samples N --no-prove
