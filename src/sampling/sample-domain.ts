@@ -1,7 +1,7 @@
 import { ToolError } from '../errors.js';
 import type { Evaluator, InputSpec, SampleSet } from '../types.js';
 import type { Box } from './check-box.js';
-import { refineInPlace } from './refine.js';
+import { refineRoundInPlace } from './refine.js';
 import type { ActiveSamples } from './refine-passes.js';
 import { createRng32 } from './rng.js';
 import { evaluatorLabeller, type RowLabeller } from './row-labeller.js';
@@ -126,9 +126,10 @@ export async function sampleDomain(inputs: readonly InputSpec[], source: Evaluat
     const need = active.candidates.length + active.to - active.from;
     if (spaces[round % 2]!.length < need) spaces[round % 2] = new Int32Array(need);
     const from = filled;
-    const candidates = refineInPlace(box, { x, advisory, margin, n: filled }, count, round, rng, x, filled, { active, scratch: spaces[round % 2]!, maxAdvisory });
-    await evaluateNew(count);
-    active = { candidates, from, to: filled };
+    // the round's points are made a batch at a time, each labelled while the next is made
+    const made = refineRoundInPlace(box, { x, advisory, margin, n: filled }, count, round, rng, x, filled, { active, scratch: spaces[round % 2]!, maxAdvisory });
+    await evaluateNew(count, (_from, rows) => made.write(rows));
+    active = { candidates: made.candidates, from, to: filled };
   }
   return { d, n: budget, x, advisory, margin, seed };
 }
