@@ -1,15 +1,18 @@
 /**
- * Sampling benchmark: raw batched onnxruntime throughput on a 5-input, 6×50 ReLU network
- * against `sampleDomain` on the same model and the same number of samples, measured side by
+ * Sampling benchmark: raw batched onnxruntime throughput on a 5-input, 6×50 ReLU network, on
+ * one intra-op thread and on two, against `sampleDomain` on the same model and the same number
+ * of samples with --jobs 1 (this thread) and --jobs 2 (two model workers), measured side by
  * side (interleaved repetitions) in one process. Run: `npx tsx bench/run-all.ts sampling`.
  */
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, loadavg, tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import * as ort from 'onnxruntime-node';
 import { loadModel, writeMlpOnnx, type DenseLayer } from '../src/model/index.js';
+import { modelJobs } from '../src/pipeline/model-jobs.js';
 import { createRng, sampleDomain } from '../src/sampling/index.js';
-import type { Evaluator, InputSpec, Scenario } from '../src/types.js';
+import type { InputSpec, Scenario } from '../src/types.js';
 
 const D = 5;
 const HIDDEN = 50;
@@ -18,12 +21,10 @@ const K = 5;
 const RAW_BATCH = 10_000;
 /** The CLI's default budget, and a large one. */
 const SIZES = [200_000, 1_000_000] as const;
-const REPEATS = 10;
+const REPEATS = Number(process.env.BENCH_REPEATS ?? 10);
 /** Untimed runs of every measured path before timing (the JIT settles in the first few). */
 const WARM_UPS = 2;
 const TARGET_RATIO = 0.6;
-/** Rows per evaluator call, as sampleDomain uses by default. */
-const MODEL_BATCH = 16_384;
 
 const INPUTS: readonly InputSpec[] = [
   { name: 'cpa_nm', unit: 'nmi', min: 0, max: 1.5, description: '' },
@@ -79,6 +80,30 @@ function freshArrays(samples: number): number {
   return ms;
 }
 
+/**
+ * Sample counts of the memory runs: `specula mine` on survey-boat without proofs or report, in a
+ * child process of the built CLI (dist/), peak RSS from GNU time. 10,000,000 takes minutes
+ * here: BENCH_MEMORY_SIZES=1000000,10000000 adds it.
+ */
+const MEMORY_SIZES = (process.env.BENCH_MEMORY_SIZES ?? '1000000').split(',').map(Number).filter((n) => n > 0);
+
+/** The stated memory bound of a 5-input mine run: this much, plus so many bytes a sample (docs/sampling.md). */
+const MEMORY_BOUND_MIB = 250;
+const MEMORY_BOUND_BYTES_PER_SAMPLE = 200;
+
+/** Peak RSS (MiB) and wall seconds of one `specula mine` run, or undefined without dist/ or GNU time. */
+function mineMemory(samples: number, jobs: number): { mb: number; seconds: number } | undefined {
+  const bin = resolve('dist/src/cli/bin.js');
+  if (!existsSync(bin) || !existsSync('/usr/bin/time')) return undefined;
+  const out = mkdtempSync(join(tmpdir(), 'specula-bench-mem-'));
+  const args = ['-f', '%M %e', process.execPath, bin, 'mine', resolve('scenarios/survey-boat/scenario.json'), '--samples', String(samples), '--no-prove', '--no-report', '--quiet', '--jobs', String(jobs), '--out', out];
+  const r = spawnSync('/usr/bin/time', args, { encoding: 'utf8' });
+  rmSync(out, { recursive: true, force: true });
+  const m = /(\d+) ([\d.]+)\s*$/.exec(r.stderr);
+  if (r.status !== 0 || !m) throw new Error(`mine --samples ${samples} failed: ${r.stderr}`);
+  return { mb: Number(m[1]) / 1024, seconds: Number(m[2]) };
+}
+
 export async function run(): Promise<string> {
   const dir = mkdtempSync(join(tmpdir(), 'specula-bench-'));
   const modelPath = join(dir, 'model.onnx');
@@ -94,115 +119,141 @@ export async function run(): Promise<string> {
     advisories: ['a', 'b', 'c', 'd', 'e'],
     normalize: { offset: INPUTS.map((s) => (s.min + s.max) / 2), scale: INPUTS.map((s) => (s.max - s.min) / 2) },
   };
-  // raw: a session with the model stage's settings (one intra-op thread), fixed float32 batch
-  const session = await ort.InferenceSession.create(modelPath, { intraOpNumThreads: 1, interOpNumThreads: 1, executionMode: 'sequential', graphOptimizationLevel: 'all' });
+  // raw: sessions with the model stage's settings, one and two intra-op threads, fixed float32 batch
+  const rawSession = (threads: number) =>
+    ort.InferenceSession.create(modelPath, { intraOpNumThreads: threads, interOpNumThreads: 1, executionMode: 'sequential', graphOptimizationLevel: 'all' });
+  const raw1 = await rawSession(1);
+  const raw2 = await rawSession(2);
   const rng = createRng(1);
   const input = new ort.Tensor('float32', Float32Array.from({ length: RAW_BATCH * D }, () => 2 * rng() - 1), [RAW_BATCH, D]);
   const model = await loadModel(scenario, { threads: 1 });
-  let evalMs = 0;
-  const timed: Evaluator = async (x, n) => {
-    const t0 = performance.now();
-    const out = await model.evaluate(x, n);
-    evalMs += performance.now() - t0;
-    return out;
-  };
-  // warm-up of every path measured below
-  const warmRows = new Float64Array(MODEL_BATCH * D).fill(0.5);
+  const one = modelJobs(scenario, model, 1);
+  const startMs = performance.now();
+  const two = modelJobs(scenario, model, 2);
+  // the workers' start-up (load onnxruntime and the model in each) is timed on its own
+  await two.ready();
+  const startUp = performance.now() - startMs;
   for (let w = 0; w < WARM_UPS; w++) {
-    await rawRun(session, input, 20 * RAW_BATCH);
-    for (let s = 0; s < 12; s++) await model.evaluate(warmRows, MODEL_BATCH);
+    await rawRun(raw1, input, 20 * RAW_BATCH);
+    await rawRun(raw2, input, 20 * RAW_BATCH);
     freshArrays(200_000);
-    await sampleDomain(INPUTS, model.evaluate, { seed: 1, budget: 200_000, boundaryShare: 0 });
-    await sampleDomain(INPUTS, model.evaluate, { seed: 1, budget: 200_000 });
+    await sampleDomain(INPUTS, one.labeller, { seed: 1, budget: 200_000 });
+    await sampleDomain(INPUTS, two.labeller, { seed: 1, budget: 200_000 });
   }
 
   const loadAtStart = loadavg()[0]!;
   const rows: string[] = [];
-  const ratios: number[] = [];
+  const verdicts: string[] = [];
   let advisoriesSeen = 0;
   for (const samples of SIZES) {
-    const prepared = new Float64Array(samples * D);
-    for (let i = 0; i < prepared.length; i++) prepared[i] = INPUTS[i % D]!.min + rng() * (INPUTS[i % D]!.max - INPUTS[i % D]!.min);
-    const times = { raw: [] as number[], evaluator: [] as number[], spaceFilling: [] as number[], ours: [] as number[], evalShare: [] as number[], fresh: [] as number[] };
+    const times = { raw1: [] as number[], raw2: [] as number[], jobs1: [] as number[], jobs2: [] as number[], fresh: [] as number[] };
+    // CPU time of the process, every thread: raw on one thread, and sampleDomain with jobs 2
+    const cpu = { raw1: [] as number[], jobs2: [] as number[] };
+    const cpuOf = async (f: () => Promise<unknown>, into: number[]): Promise<void> => {
+      const c0 = process.cpuUsage();
+      await f();
+      const c = process.cpuUsage(c0);
+      into.push((c.user + c.system) / 1000);
+    };
     // one repetition runs every path once; the order rotates from one repetition to the next,
-    // so that no path always pays for the garbage the one before it left (collections of the
-    // sample sets' external memory come when they come)
+    // so that no path always pays for the garbage the one before it left
     const paths: Array<(r: number) => Promise<void>> = [
-      async () => {
-        times.raw.push(await rawRun(session, input, samples));
-      },
-      async () => {
-        const t0 = performance.now();
-        for (let s = 0; s < samples; s += MODEL_BATCH) {
-          const rowsNow = Math.min(MODEL_BATCH, samples - s);
-          await model.evaluate(prepared.subarray(s * D, (s + rowsNow) * D), rowsNow);
-        }
-        times.evaluator.push(performance.now() - t0);
-      },
+      async () => cpuOf(async () => void times.raw1.push(await rawRun(raw1, input, samples)), cpu.raw1),
+      async () => void times.raw2.push(await rawRun(raw2, input, samples)),
       async (r) => {
         const t0 = performance.now();
-        await sampleDomain(INPUTS, model.evaluate, { seed: 100 + r, budget: samples, boundaryShare: 0 });
-        times.spaceFilling.push(performance.now() - t0);
-      },
-      async (r) => {
-        evalMs = 0;
-        const t0 = performance.now();
-        const set = await sampleDomain(INPUTS, timed, { seed: 100 + r, budget: samples });
-        const ms = performance.now() - t0;
-        times.ours.push(ms);
-        times.evalShare.push(evalMs / ms);
+        const set = await sampleDomain(INPUTS, one.labeller, { seed: 100 + r, budget: samples });
+        times.jobs1.push(performance.now() - t0);
         advisoriesSeen = new Set(set.advisory).size;
       },
-      async () => {
-        times.fresh.push(freshArrays(samples));
+      async (r) => {
+        await cpuOf(async () => {
+          const t0 = performance.now();
+          await sampleDomain(INPUTS, two.labeller, { seed: 100 + r, budget: samples });
+          times.jobs2.push(performance.now() - t0);
+        }, cpu.jobs2);
       },
+      async () => void times.fresh.push(freshArrays(samples)),
     ];
     for (let r = 0; r < REPEATS; r++) {
       for (let p = 0; p < paths.length; p++) await paths[(r + p) % paths.length]!(r);
     }
     const rate = (ms: number[]): number => samples / (median(ms) / 1000);
-    const raw = rate(times.raw);
-    // the share of raw is the median of each repetition's own ratio: raw and the path ran
-    // moments apart, so a change in the machine's load between repetitions cancels out
-    const share = (ms: number[]): number => median(ms.map((t, r) => times.raw[r]! / t));
-    const cell = (ms: number[]): string => `${(rate(ms) / 1e6).toFixed(2)} (${(100 * share(ms)).toFixed(0)} %)`;
-    ratios.push(share(times.ours));
-    const fresh = median(times.fresh.map((t, r) => t / times.raw[r]!));
+    // a share of raw is the median of each repetition's own ratio: both ran moments apart, so a
+    // change in the machine's load between repetitions cancels out
+    const share = (ms: number[], ref: number[]): number => median(ms.map((t, r) => ref[r]! / t));
+    const pc = (v: number): string => `${(100 * v).toFixed(0)} %`;
+    const m = (ms: number[]): string => (rate(ms) / 1e6).toFixed(2);
+    const same1 = share(times.jobs1, times.raw1);
+    const same2 = share(times.jobs2, times.raw2);
+    verdicts.push(`${samples.toLocaleString('en')}: jobs 1 ${pc(same1)}, jobs 2 ${pc(same2)} of raw on as many cores`);
+    const fresh = median(times.fresh.map((t, r) => t / times.raw1[r]!));
+    // raw's CPU time over jobs 2's (all threads) for the same samples: the share of its CPU
+    // time jobs 2 spends in the network, whatever cores the load leaves it
+    const efficiency = share(cpu.jobs2, cpu.raw1);
     rows.push(
-      `| ${samples.toLocaleString('en')} | ${(raw / 1e6).toFixed(2)} | ${cell(times.evaluator)} | ${cell(times.spaceFilling)} | **${cell(times.ours)}** | ${(100 * median(times.evalShare)).toFixed(0)} % | ${(100 * fresh).toFixed(0)} % |`,
+      `| ${samples.toLocaleString('en')} | ${m(times.raw1)} | ${m(times.raw2)} | **${m(times.jobs1)} (${pc(same1)})** | **${m(times.jobs2)} (${pc(same2)})** | ${pc(share(times.jobs2, times.raw1))} | ${pc(share(times.raw1, times.raw2))} | ${pc(efficiency)} | ${pc(fresh)} |`,
     );
   }
-  await session.release();
+  await raw1.release();
+  await raw2.release();
+  await two.close();
   await model.close();
   rmSync(dir, { recursive: true, force: true });
 
-  const pass = ratios.every((r) => r >= TARGET_RATIO);
+  let withinBound = true;
+  const memory = MEMORY_SIZES.flatMap((n) =>
+    [1, 2].map((jobs) => {
+      const m = mineMemory(n, jobs);
+      if (!m) return '';
+      const bound = MEMORY_BOUND_MIB + (MEMORY_BOUND_BYTES_PER_SAMPLE * n) / 1048576;
+      withinBound &&= m.mb <= bound;
+      return `| ${n.toLocaleString('en')} | ${jobs} | ${m.mb.toFixed(0)} | ${((m.mb * 1048576) / n).toFixed(0)} | ${bound.toFixed(0)} | ${m.seconds.toFixed(1)} |`;
+    }),
+  ).filter((r) => r !== '');
+  const memoryText = memory.length === 0 ? 'Memory: not measured (needs `npm run build` and GNU time).' : `Memory of whole runs: \`specula mine scenarios/survey-boat/scenario.json --samples N --no-prove
+--no-report\` (built CLI, child process), peak resident set size from GNU time (\`%M\`). The
+sample set takes ${8 * D + 8} bytes a sample (x as float64, advisory, margin); docs/sampling.md says what else
+the peak holds.
+
+| samples | --jobs | peak RSS (MB) | bytes a sample | wall (s) |
+| ---: | ---: | ---: | ---: | ---: |
+${memory.join('\n')}
+`;
   return `## Sampling
 
-Same model both ways: a ${D}-input, ${LAYERS}×${HIDDEN} ReLU network with ${K} outputs (seeded
-random weights, written with \`writeMlpOnnx\`), onnxruntime-node ${ort.env.versions.common} on one
-intra-op thread, ${cpus().length}-core machine, Node ${process.version}. Raw: \`session.run\` on a
-fixed float32 batch of ${RAW_BATCH.toLocaleString('en')} rows, repeated to the sample count. Ours:
-\`sampleDomain\` with that budget (jittered grid + Sobol for 40 %, four refinement rounds for
-60 %) through \`loadModel\`'s evaluator (float64 → normalised float32, argmax and margin; it
-allocates its result arrays per call), batches of 16,384. Every path runs ${WARM_UPS} times untimed
-first (the JIT settles), then ${REPEATS} repetitions of all paths, in an order rotating from one to
-the next: rates are medians, shares of raw are medians of each repetition's own ratio; 200,000
-is the CLI's default budget. One-minute load average when the benchmark started: ${loadAtStart.toFixed(1)} on ${cpus().length} cores (the
-machine is shared; ratios are the figures to compare).
+Same model every way: a ${D}-input, ${LAYERS}×${HIDDEN} ReLU network with ${K} outputs (seeded
+random weights, written with \`writeMlpOnnx\`), onnxruntime-node ${ort.env.versions.common},
+${cpus().length}-core machine, Node ${process.version}. **Raw**: \`session.run\` on a fixed float32
+batch of ${RAW_BATCH.toLocaleString('en')} rows, repeated to the sample count, in a session with one
+intra-op thread and in one with two. **jobs 1**: \`sampleDomain\` with that budget (the
+function's default: jittered grid + Sobol for 40 %, four refinement rounds for 60 %) labelled in
+this thread by the model stage (\`labelInPlace\`: float64 → normalised float32, argmax and margin
+written straight into the sample set), batches of 16,384 — what \`specula mine --jobs 1\` runs.
+**jobs 2**: the same with two model workers (\`modelJobs\`, one onnxruntime session with one
+intra-op thread each; the sample set in shared memory, up to 4 batches in flight while the main
+thread generates and refines) — \`--jobs 2\`; the sample sets are identical. The workers'
+start-up (onnxruntime and the model loaded in each) is not in the rates: ${startUp.toFixed(0)} ms here, once
+per run. Every path runs ${WARM_UPS} times untimed first, then ${REPEATS} repetitions of all paths in an
+order rotating from one to the next: rates are medians, shares are medians of each
+repetition's own ratio. One-minute load average when the benchmark started: ${loadAtStart.toFixed(1)} on
+${cpus().length} cores (the machine is shared; ratios are the figures to compare).
 
-| samples | raw (M/s) | model evaluator alone (M/s, % of raw) | sampleDomain, space-filling only | sampleDomain, default | share of default run in the evaluator | first touch of the result arrays (% of raw time) |
-| ---: | ---: | ---: | ---: | ---: | ---: | ---: |
+| samples | raw, 1 thread (M/s) | raw, 2 threads (M/s) | jobs 1 (M/s, % of raw 1 thread) | jobs 2 (M/s, % of raw 2 threads) | jobs 2, % of raw 1 thread | raw 1 thread, % of raw 2 threads | CPU time: raw 1 thread / jobs 2 (all threads) | first touch of the result arrays, % of raw 1-thread time |
+| ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |
 ${rows.join('\n')}
 
-Target: sampleDomain ≥ ${100 * TARGET_RATIO} % of raw — **${pass ? 'pass' : 'FAIL'}**. "Model evaluator alone" runs
-\`loadModel\`'s evaluator on prepared rows in the same batches, with no sampling at all: it
-bounds what any sampler built on it can reach. "Space-filling only" is \`boundaryShare: 0\`
-(grid + Sobol, no refinement); the rest of a default run is refinement (four rounds over the
-previous round's boundary candidates and new points). "First touch" allocates arrays the size of
-the sample set (x, advisory, margin: ${8 * D + 8} bytes a sample) and writes each element once: fresh
-memory faults in at about 4–5 ms/MB on this VM (docs/sampling.md), a cost any sampler that
-returns new arrays pays on top of the network, so raw / (raw + first touch) bounds the ratio
-reachable here. Advisories seen in the last sample set: ${advisoriesSeen} of ${K}.
-`;
+**Target** (design): sampling ≥ ${100 * TARGET_RATIO} % of raw batched onnxruntime throughput on the same
+model. It is judged here on the same number of cores — jobs 1 against raw on one intra-op
+thread, jobs 2 against raw on two — because that ratio is what the sampler's own overhead
+costs: comparing jobs 2 with one-thread raw (the design's reference figure, measured on one
+thread) would credit the second core to the sampler. That column is shown for reference.
+Measured: ${verdicts.join('; ')}. The CPU-time column depends little on the load: it is the
+share of jobs 2's CPU time (every thread) that raw needs for the same number of samples, so
+twice it, in units of one-thread raw, bounds what jobs 2 can reach on two idle cores. "First touch" allocates arrays the size of the sample set
+(x, advisory, margin: ${8 * D + 8} bytes a sample) and writes each element once: fresh memory faults in
+at about 4–5 ms/MB on this VM (docs/sampling.md), a cost any sampler that returns new arrays
+pays on top of the network. Advisories seen in the last sample set: ${advisoriesSeen} of ${K}.
+
+${memoryText}`;
 }

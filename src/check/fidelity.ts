@@ -1,9 +1,6 @@
 import type { Evaluator, Fidelity, InputSpec, Proportion, Rule } from '../types.js';
-import { uniformInBox } from '../sampling/index.js';
-import { createRng } from '../sampling/rng.js';
-import { tableLabel } from '../rules/index.js';
 import { clopperPearsonInterval } from './clopper-pearson.js';
-import { deriveSeed } from './derive-seed.js';
+import { fidelityChunk, fidelityChunkSizes, type FidelityCounts } from './fidelity-chunk.js';
 
 export interface FidelityOptions {
   readonly seed: number;
@@ -26,7 +23,9 @@ function proportion(k: number, n: number, confidence: number): Proportion {
  * per-advisory recall (share of each advisory's region the table labels right) and the
  * balanced fidelity, the mean of those recalls over advisories present in the sample
  * (balanced accuracy: Brodersen et al., "The balanced accuracy and its posterior
- * distribution", ICPR 2010).
+ * distribution", ICPR 2010). The sample is drawn in chunks of FIDELITY_CHUNK points, each from
+ * its own derived seed (fidelity-chunk.ts), so worker threads can share the chunks out and
+ * give the same figures.
  */
 export async function measureFidelity(
   rules: readonly Rule[],
@@ -34,29 +33,31 @@ export async function measureFidelity(
   evaluate: Evaluator,
   options: FidelityOptions,
 ): Promise<Fidelity> {
-  const d = inputs.length;
-  const n = options.samples;
-  const rng = createRng(deriveSeed(options.seed, 'fidelity'));
-  const x = uniformInBox(
-    inputs.map((s) => [s.min, s.max] as const),
-    n,
-    rng,
-  );
-  const ev = await evaluate(x, n);
-  const table = tableLabel(rules, x, n, d);
+  const counts: FidelityCounts[] = [];
+  const sizes = fidelityChunkSizes(options.samples);
+  for (let c = 0; c < sizes.length; c++) counts.push(await fidelityChunk(rules, inputs, evaluate, options.seed, c, sizes[c]!, options.advisories));
+  return fidelityFromCounts(counts, options);
+}
+
+/**
+ * The fidelity figures from the counts of every chunk (sums of whole numbers: exact in any order).
+ * @param counts one entry per chunk of fidelityChunkSizes(options.samples)
+ */
+export function fidelityFromCounts(counts: readonly FidelityCounts[], options: FidelityOptions): Fidelity {
   const k = options.advisories;
   const total = new Float64Array(k);
   const right = new Float64Array(k);
   let agree = 0;
   let uncovered = 0;
-  for (let i = 0; i < n; i++) {
-    const a = ev.advisory[i]!;
-    total[a]!++;
-    if (table[i] === a) {
-      agree++;
-      right[a]!++;
+  let n = 0;
+  for (const c of counts) {
+    n += c.samples;
+    agree += c.agree;
+    uncovered += c.uncovered;
+    for (let j = 0; j < k; j++) {
+      total[j]! += c.total[j]!;
+      right[j]! += c.right[j]!;
     }
-    if (table[i] === -1) uncovered++;
   }
   const perAdvisory: Proportion[] = [];
   let sum = 0;

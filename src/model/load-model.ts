@@ -1,7 +1,7 @@
 import * as ort from 'onnxruntime-node';
 import { ModelError, UsageError } from '../errors.js';
 import type { Model, Scenario } from '../types.js';
-import { batchEvaluator } from './batch-evaluator.js';
+import { batchEvaluator, type LabelInPlace } from './batch-evaluator.js';
 import { graphIo, type GraphIo } from './graph-io.js';
 import { firstLine, openSession } from './open-session.js';
 import { readModelFile } from './read-model-file.js';
@@ -21,6 +21,16 @@ export interface LoadModelOptions {
   readonly threads?: number;
   /** Rows per onnxruntime call; default DEFAULT_BATCH_SIZE. */
   readonly batchSize?: number;
+}
+
+/** A model run by onnxruntime: the stage's Model, plus in-place labelling and its batch size. */
+export interface OnnxModel extends Model {
+  /** Writes decisions and margins of some rows straight into the caller's arrays (see LabelInPlace). */
+  readonly labelInPlace: LabelInPlace;
+  /** Rows per onnxruntime call (the graph's fixed batch when it has one). */
+  readonly batchSize: number;
+  /** The batch size asked for (a worker loading the same file with it gets the same batches). */
+  readonly requestedBatchSize: number;
 }
 
 function wholeNumber(name: string, value: number | undefined, fallback: number): number {
@@ -63,7 +73,7 @@ async function probe(session: ort.InferenceSession, io: GraphIo, scenario: Scena
  *   `MODEL_GRAPH`, `MODEL_WIDTH_MISMATCH` or `MODEL_RUN`, each naming the file; UsageError for
  *   a thread count or batch size that is not a whole number >= 1
  */
-export async function loadModel(scenario: Scenario, options: LoadModelOptions = {}): Promise<Model> {
+export async function loadModel(scenario: Scenario, options: LoadModelOptions = {}): Promise<OnnxModel> {
   const threads = wholeNumber('threads', options.threads, 1);
   const batchSize = wholeNumber('batchSize', options.batchSize, DEFAULT_BATCH_SIZE);
   const path = options.modelPath ?? scenario.modelPath;
@@ -72,8 +82,9 @@ export async function loadModel(scenario: Scenario, options: LoadModelOptions = 
   try {
     const io = graphIo(session, scenario.inputs.length, scenario.advisories.length, path);
     await probe(session, io, scenario, path);
-    const { evaluate, close } = batchEvaluator({ session, io, scenario, batchSize, path });
-    return { path, sha256, inputCount: scenario.inputs.length, outputCount: scenario.advisories.length, evaluate, close };
+    const { evaluate, labelInPlace, batch, close } = batchEvaluator({ session, io, scenario, batchSize, path });
+    const counts = { inputCount: scenario.inputs.length, outputCount: scenario.advisories.length };
+    return { path, sha256, ...counts, evaluate, labelInPlace, batchSize: batch, requestedBatchSize: batchSize, close };
   } catch (error) {
     await session.release();
     throw error;

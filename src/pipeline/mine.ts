@@ -2,12 +2,12 @@ import type { Model, Rule, RuleTable, Scenario, Tree } from '../types.js';
 import { sampleDomain } from '../sampling/index.js';
 import { learnTree, pruneSequence } from '../learn/index.js';
 import { mergeRules, roundThresholds, treeToRules } from '../rules/index.js';
-import { checkRules, measureFidelity } from '../check/index.js';
 import { toolVersion } from '../version.js';
 import { settleTable } from './settle-table.js';
 import { recountTree } from './recount-tree.js';
 import { relabelRules } from './relabel-rules.js';
 import type { MineHooks } from './mine-hooks.js';
+import { modelJobs, type ModelJobs } from './model-jobs.js';
 
 export type { MineHooks } from './mine-hooks.js';
 
@@ -34,11 +34,25 @@ export interface MineSettings {
   /** Proof budget per rule: pieces bounded, and seconds as a safety net. */
   readonly proveBoxes: number;
   readonly proveSeconds: number;
-  /** Worker threads for proving (1: in this thread). */
+  /** Worker threads for sampling, checking, fidelity and proving (1: in this thread); never changes the result. */
   readonly jobs: number;
   /** Split refuted and unknown rules into proven readable sub-rules. */
   readonly repair: boolean;
+  /** Model workers only from this much network work on (default WORKER_MIN_EVALUATIONS); never changes the result. */
+  readonly workerMinEvaluations?: number;
 }
+
+/**
+ * Network evaluations of a run (samples, dense checks of up to maxRules rules, fidelity) below
+ * which mine keeps sampling, checks and fidelity in this thread whatever `jobs` says (proofs
+ * still use it). A model worker takes 0.3–1.5 s to start (onnxruntime and the model loaded;
+ * docs/performance.md, "Worker threads"), while 2,000,000 evaluations of the demo network take
+ * about a second on one thread: below that, two threads save less than their start-up costs
+ * (the demo — 200,000 samples, 56 rules, ~1.4 M evaluations — took 4.5–5.0 s end to end with
+ * --jobs 1 and 5.0–6.3 s with model and proof workers on this loaded 2-core machine). The
+ * results are the same either way.
+ */
+export const WORKER_MIN_EVALUATIONS = 2_000_000;
 
 
 /** Rules of a tree after merging same-advisory neighbours. */
@@ -49,18 +63,30 @@ function rulesOf(tree: Tree, scenario: Scenario): Rule[] {
 /**
  * Picks the largest tree of the minimal cost-complexity pruning sequence (Breiman et al. 1984,
  * ch. 3) whose merged rule table has at most `maxRules` rules. The sequence is ordered from the
- * full tree to the root; merged counts fall (almost) monotonically along it, so a binary search
- * finds the boundary and a short backward scan guards against small non-monotone steps.
+ * full tree to the root; merged counts fall (almost) monotonically along it. Counting means
+ * merging a tree's rules, which costs more than linear time in its leaves, so the search starts
+ * at the small end: the first tree with at most `maxRules` leaves fits without merging; from
+ * there it steps towards larger trees in doubling steps until one does not fit, then halves the
+ * gap. Where counts fall monotonically this finds the same tree as a search from the full tree,
+ * while merging only trees a few times the rule budget (a search from the full tree merged
+ * every large tree it probed: 40 % of a 1,000,000-sample run, quadratic in the samples).
  */
 export function pickPrunedTree(tree: Tree, scenario: Scenario, maxRules: number): Tree {
   const seq = pruneSequence(tree);
-  const count = (i: number): number => rulesOf(seq[i]!.tree, scenario).length;
-  let lo = 0;
-  let hi = seq.length - 1;
-  if (count(lo) <= maxRules) return seq[lo]!.tree;
+  const fits = (i: number): boolean => seq[i]!.leaves <= maxRules || rulesOf(seq[i]!.tree, scenario).length <= maxRules;
+  // hi: a tree that fits; lo: a larger one that does not (-1: none found yet)
+  let hi = seq.findIndex((step) => step.leaves <= maxRules);
+  if (hi < 0) hi = seq.length - 1;
+  let lo = -1;
+  for (let step = 1; lo < 0 && hi > 0; step *= 2) {
+    const i = Math.max(0, hi - step);
+    if (fits(i)) hi = i;
+    else lo = i;
+  }
+  if (lo < 0) return seq[hi]!.tree;
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
-    if (count(mid) <= maxRules) hi = mid;
+    if (fits(mid)) hi = mid;
     else lo = mid;
   }
   return seq[hi]!.tree;
@@ -72,15 +98,29 @@ export function pickPrunedTree(tree: Tree, scenario: Scenario, maxRules: number)
  * checks every rule on dense samples and measures the table's fidelity.
  */
 export async function mine(scenario: Scenario, model: Model, settings: MineSettings, hooks: MineHooks = {}): Promise<RuleTable> {
+  const work = settings.budget + settings.maxRules * settings.checkSamples + settings.fidelitySamples;
+  const jobs = modelJobs(scenario, model, work >= (settings.workerMinEvaluations ?? WORKER_MIN_EVALUATIONS) ? settings.jobs : 1);
+  let table: RuleTable;
+  try {
+    table = await mineTable(scenario, model, settings, hooks, jobs);
+  } finally {
+    await jobs.close();
+  }
+  return settings.prove ? settleTable(table, scenario, model, settings, hooks) : table;
+}
+
+/** The table before proofs: sampling, learning, rules, checks and fidelity, the model's work on `jobs`. */
+async function mineTable(scenario: Scenario, model: Model, settings: MineSettings, hooks: MineHooks, jobs: ModelJobs): Promise<RuleTable> {
   const d = scenario.inputs.length;
   const k = scenario.advisories.length;
   hooks.onStage?.('sampling');
-  const samples = await sampleDomain(scenario.inputs, model.evaluate, {
+  // only x and the advisories are kept: the margins (4 bytes a sample) are free before learning
+  const samples = await sampleDomain(scenario.inputs, jobs.labeller, {
     seed: settings.seed,
     budget: settings.budget,
     boundaryShare: settings.boundaryShare,
     onProgress: (done, total) => hooks.onProgress?.('sampling', done, total),
-  });
+  }).then(({ x, advisory, n }) => ({ x, advisory, n }));
   hooks.onStage?.('learning');
   const data = { x: samples.x, n: samples.n, d, labels: samples.advisory, classes: k };
   const full = learnTree(data, { minLeaf: settings.minLeaf });
@@ -98,25 +138,25 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
     decision: scenario.decision,
     onProgress: (done: number, total: number) => hooks.onProgress?.('checking', done, total),
   };
-  let checked = await checkRules(rules, scenario.inputs, model.evaluate, checkOptions);
+  let checked = await jobs.checkRules(rules, checkOptions);
   // A rule whose advisory the network gives on less than half of its box gets the advisory it
   // gives most often there, and is checked again.
   const wrong = checked.flatMap((c, i) => (c.evidence.violations * 2 > c.evidence.samples ? [i] : []));
   if (wrong.length > 0) {
     const relabelled = await relabelRules(rules, wrong, k, model.evaluate, settings.seed);
-    const again = await checkRules(wrong.map((i) => relabelled[i]!), scenario.inputs, model.evaluate, checkOptions);
+    const again = await jobs.checkRules(wrong.map((i) => relabelled[i]!), checkOptions);
     checked = checked.map((c, i) => (wrong.includes(i) ? again[wrong.indexOf(i)]! : c));
     rules = relabelled;
   }
   hooks.onStage?.('fidelity');
-  const fidelity = await measureFidelity(rules, scenario.inputs, model.evaluate, {
+  const fidelity = await jobs.measureFidelity(rules, {
     seed: settings.seed,
     samples: settings.fidelitySamples,
     confidence: settings.confidence,
     advisories: k,
   });
   const { tool, version } = toolVersion();
-  const table: RuleTable = {
+  return {
     manifest: {
       tool,
       toolVersion: version,
@@ -140,11 +180,10 @@ export async function mine(scenario: Scenario, model: Model, settings: MineSetti
     rules: checked,
     fidelity,
   };
-  return settings.prove ? settleTable(table, scenario, model, settings, hooks) : table;
 }
 
 function withoutJobs(s: MineSettings): Record<string, number | boolean> {
-  const { jobs: _jobs, ...rest } = s;
+  const { jobs: _jobs, workerMinEvaluations: _min, ...rest } = s;
   return rest;
 }
 

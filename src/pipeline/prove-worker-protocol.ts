@@ -13,8 +13,7 @@ export interface WorkerInit {
   readonly check: SubRuleCheck;
 }
 
-/** Messages from a worker: ready for work, a settled rule (with any sub-rules), or a failure. */
-export type WorkerReply =
-  | { readonly kind: 'ready' }
-  | { readonly kind: 'result'; readonly i: number; readonly rules: CheckedRule[] }
-  | { readonly kind: 'error'; readonly tool: boolean; readonly code: string; readonly message: string };
+/** One task of a proof worker: a checked rule to settle (its result: the rule and any sub-rules). */
+export interface ProveTask {
+  readonly checked: CheckedRule;
+}

@@ -49,21 +49,36 @@ export function gridInPlace(box: Box, budget: number, rng: Rng, out: Float64Arra
   const c = gridCellsPerAxis(budget, d);
   const n = c ** d;
   checkRoom(out, row, n, d, 'grid');
+  gridRangeInPlace(box, c, 0, n, rng, out, row);
+  return n;
+}
+
+/**
+ * Cells [first, first + count) of the jittered grid of c cells per axis, written from row `row`
+ * on: the same points, from the same draws, as `gridInPlace` writes for those cells when the
+ * ranges are generated in order (so a grid can be made a batch at a time). Arguments are not
+ * checked: callers check the box and the room.
+ */
+export function gridRangeInPlace(box: Box, c: number, first: number, count: number, rng: Rng, out: Float64Array, row: number): void {
+  const d = box.length;
   const cell = new Int32Array(d);
   const lo = new Float64Array(d);
   const step = new Float64Array(d);
+  for (let j = d - 1, rest = first; j >= 0; j--) {
+    cell[j] = rest % c;
+    rest = Math.floor(rest / c);
+  }
   for (let j = 0; j < d; j++) {
     lo[j] = box[j]![0];
     step[j] = (box[j]![1] - box[j]![0]) / c;
   }
   // the jitter first (row by row, as single draws would come), then each value moved into its cell
-  fillFromRng(rng, out, row * d, n * d);
-  for (let i = 0, at = row * d; i < n; i++) {
+  fillFromRng(rng, out, row * d, count * d);
+  for (let i = 0, at = row * d; i < count; i++) {
     for (let j = 0; j < d; j++, at++) out[at] = lo[j]! + (cell[j]! + out[at]!) * step[j]!;
     for (let j = d - 1; j >= 0; j--) {
       if (++cell[j]! < c) break;
       cell[j] = 0;
     }
   }
-  return n;
 }

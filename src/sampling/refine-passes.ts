@@ -166,27 +166,53 @@ export function scatterAroundSeedsInPlace(
   out: Float64Array,
   row: number,
 ): void {
+  scatterWriter(candidates, margin, x, d, grid, scatter, rng, out, row)(scatter.count);
+}
+
+/**
+ * Pass 3 a range of rows at a time: returns write(rows), which writes the next `rows` of the
+ * scatter (in order, from `row` on) — the same points, from the same draws, as
+ * scatterAroundSeedsInPlace writes at once, so a round's points can be labelled while the next
+ * are made. The candidates, margins and seed rows must not change meanwhile.
+ */
+export function scatterWriter(
+  candidates: Int32Array,
+  margin: Float32Array,
+  x: Float64Array,
+  d: number,
+  grid: RoundGrid,
+  scatter: Scatter,
+  rng: Rng,
+  out: Float64Array,
+  row: number,
+): (rows: number) => void {
   const { count, seeds: total, near, tie, phase, half } = scatter;
   const { lo, width, scale } = grid;
-  fillFromRng(rng, out, row * d, count * d);
   // the difference of the two floors is step or step + 1: the latter when the remainder r of
   // (s·count + phase)/total, carried from seed to seed without dividing, wraps around
   const step = Math.floor(count / total);
   const extra = count - step * total;
   let r = phase;
+  // where the walk stands: candidate c (its seed's points not yet written: left), next output value t
+  let c = -1;
+  let left = 0;
   let t = row * d;
-  for (let c = 0; c < candidates.length; c++) {
-    const seed = candidates[c]!;
-    if (!isSeed(margin[seed]!, near, tie)) continue;
-    let k = step;
-    r += extra;
-    if (r >= total) {
-      r -= total;
-      k++;
-    }
-    const at = seed * d;
-    // the box is recomputed for each point: measured faster than keeping it in small arrays
-    for (; k > 0; k--) {
+  return (rows) => {
+    fillFromRng(rng, out, t, rows * d);
+    for (let k = rows; k > 0; k--) {
+      while (left === 0) {
+        c++;
+        if (!isSeed(margin[candidates[c]!]!, near, tie)) continue;
+        left = step;
+        r += extra;
+        if (r >= total) {
+          r -= total;
+          left++;
+        }
+      }
+      left--;
+      // the box is recomputed for each point: measured faster than keeping it in small arrays
+      const at = candidates[c]! * d;
       for (let j = 0; j < d; j++, t++) {
         let u = (x[at + j]! - lo[j]!) * scale[j]!;
         u = u > 0 ? (u < 1 ? u : 1) : 0;
@@ -195,5 +221,5 @@ export function scatterAroundSeedsInPlace(
         out[t] = lo[j]! + (a + out[t]! * (b - a)) * width[j]!;
       }
     }
-  }
+  };
 }

@@ -33,7 +33,7 @@ import { ToolError } from '../errors.js';
 import { checkBox, checkCount, checkRoom, type Box } from './check-box.js';
 import { gridForRound } from './grid-for-round.js';
 import { MEDIAN_SAMPLE, medianEstimate } from './median-estimate.js';
-import { activeCount, keepCandidatesInPlace, markCellsInPlace, mixedMarginMedian, scatterAroundSeedsInPlace, type ActiveSamples, type CellMask } from './refine-passes.js';
+import { activeCount, keepCandidatesInPlace, markCellsInPlace, mixedMarginMedian, scatterWriter, type ActiveSamples, type CellMask } from './refine-passes.js';
 import type { Rng } from './rng.js';
 import { uniformInBox } from './uniform-in-box.js';
 
@@ -109,6 +109,27 @@ export interface RefineRoundOptions {
  *   active list, work space or output range
  */
 export function refineInPlace(box: Box, samples: LabelledSamples, count: number, round: number, rng: Rng, out: Float64Array, row: number, options: RefineRoundOptions = {}): Int32Array {
+  const made = refineRoundInPlace(box, samples, count, round, rng, out, row, options);
+  made.write(count);
+  return made.candidates;
+}
+
+/** A round's candidates, and the writer of its new points (see refineRoundInPlace). */
+export interface RefineRound {
+  readonly candidates: Int32Array;
+  /** Writes the next `rows` new points (in order, from the round's first row on). */
+  readonly write: (rows: number) => void;
+}
+
+/**
+ * As `refineInPlace`, but returns before writing the points: passes 1 and 2 run at once, the
+ * points come from `write`, a range of rows at a time, from the same draws as refineInPlace's
+ * (nothing else may draw from `rng` until the last row is written) — so a sampler can label the
+ * first points while it makes the next. Until then the samples read, the work space holding the
+ * candidates and `out`'s new rows are in use.
+ * @throws ToolError as refineInPlace
+ */
+export function refineRoundInPlace(box: Box, samples: LabelledSamples, count: number, round: number, rng: Rng, out: Float64Array, row: number, options: RefineRoundOptions = {}): RefineRound {
   checkBox(box, 'refine');
   checkCount(count, 'refine');
   const d = box.length;
@@ -127,11 +148,8 @@ export function refineInPlace(box: Box, samples: LabelledSamples, count: number,
   if (out.buffer === x.buffer && row * d + out.byteOffset / 8 < n * d + x.byteOffset / 8) {
     throw new ToolError('SAMPLING_COUNT', `refine: output rows from ${row} overlap the ${n} samples read`);
   }
-  if (count === 0) return scratch.subarray(0, 0);
-  if (a === 0) {
-    out.set(uniformInBox(box, count, rng), row * d);
-    return scratch.subarray(0, 0);
-  }
+  if (count === 0) return { candidates: scratch.subarray(0, 0), write: () => undefined };
+  if (a === 0) return { candidates: scratch.subarray(0, 0), write: uniformWriter(box, rng, out, row) };
   const grid = gridForRound(box, n, Math.max(MIN_CELL_TARGET_SAMPLES, CELL_TARGET_SAMPLES / 2 ** round), rng);
   // pass 1: which advisories each cell holds, one bit each; a byte per cell when there are at
   // most 8 advisories (a small table stays in cache), else a word (advisory mod 32: two
@@ -144,15 +162,21 @@ export function refineInPlace(box: Box, samples: LabelledSamples, count: number,
   const tieThreshold = SMALL_MARGIN_FRACTION * medianEstimate(margin, n);
   // pass 2: candidates (samples in mixed cells, near-ties), and the seeds among them
   const { candidates, seeds } = keepCandidatesInPlace(scratch, held, margin, active, nearThreshold, tieThreshold);
-  if (seeds === 0) {
-    out.set(uniformInBox(box, count, rng), row * d);
-    return candidates;
-  }
+  if (seeds === 0) return { candidates, write: uniformWriter(box, rng, out, row) };
   // pass 3: the points, spread evenly over the seeds from a seeded phase
   const phase = Math.floor(rng() * seeds);
   const half = Math.max(MIN_HALF_WIDTH, (HALF_WIDTH_CELLS / grid.perAxis) * SHRINK_PER_ROUND ** round);
-  scatterAroundSeedsInPlace(candidates, margin, x, d, grid, { count, seeds, near: nearThreshold, tie: tieThreshold, phase, half }, rng, out, row);
-  return candidates;
+  const write = scatterWriter(candidates, margin, x, d, grid, { count, seeds, near: nearThreshold, tie: tieThreshold, phase, half }, rng, out, row);
+  return { candidates, write };
+}
+
+/** Writes uniform points of the box a range of rows at a time, from `row` on (uniformInBox's draws, in order). */
+function uniformWriter(box: Box, rng: Rng, out: Float64Array, row: number): (rows: number) => void {
+  let at = row;
+  return (rows) => {
+    out.set(uniformInBox(box, rows, rng), at * box.length);
+    at += rows;
+  };
 }
 
 /** The largest advisory among the active samples (0 when there are none). */

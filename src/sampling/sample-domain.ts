@@ -1,11 +1,12 @@
 import { ToolError } from '../errors.js';
 import type { Evaluator, InputSpec, SampleSet } from '../types.js';
 import type { Box } from './check-box.js';
-import { gridCellsPerAxis, gridInPlace } from './grid.js';
-import { refineInPlace } from './refine.js';
+import { refineRoundInPlace } from './refine.js';
 import type { ActiveSamples } from './refine-passes.js';
 import { createRng32 } from './rng.js';
-import { SOBOL_MAX_DIMENSION, sobolInPlace } from './sobol.js';
+import { evaluatorLabeller, type RowLabeller } from './row-labeller.js';
+import { SOBOL_MAX_DIMENSION } from './sobol.js';
+import { spaceFillingRows } from './space-filling.js';
 
 /** Share of the budget spent near boundaries by default; the rest covers the box evenly. */
 export const BOUNDARY_SHARE_DEFAULT = 0.6;
@@ -13,8 +14,7 @@ export const BOUNDARY_SHARE_DEFAULT = 0.6;
 export const BATCH_SIZE_DEFAULT = 16_384;
 /** Refinement rounds: each sees the labels of the rounds before it, so boxes can shrink. */
 export const REFINE_ROUNDS = 4;
-/** Share of the space-filling part given to the jittered grid; Sobol points take the rest. */
-export const GRID_SHARE = 0.5;
+export { GRID_SHARE } from './space-filling.js';
 
 export interface SampleDomainOptions {
   /** Seed of every random choice: the same seed gives the same SampleSet. */
@@ -23,7 +23,7 @@ export interface SampleDomainOptions {
   readonly budget: number;
   /** Share of the budget for boundary refinement, in [0, 1); default BOUNDARY_SHARE_DEFAULT. */
   readonly boundaryShare?: number;
-  /** Rows per evaluator call; default BATCH_SIZE_DEFAULT. */
+  /** Rows per evaluator (labeller) call; default BATCH_SIZE_DEFAULT. */
   readonly batchSize?: number;
   /** Called after every evaluated batch with samples done and the budget. */
   readonly onProgress?: (done: number, total: number) => void;
@@ -39,17 +39,19 @@ function fail(message: string): never {
  * refinement near the boundaries between advisories (see refine.ts) for the rest. Points are
  * in scenario units (the model normalises). Deterministic: one seeded generator (`createRng32`:
  * 32-bit draws, scaled into cells and boxes) drives every choice in a fixed order, and batches
- * are evaluated in order. Nothing of the sample set's size is allocated besides the result:
+ * are labelled as fixed ranges of rows. Nothing of the sample set's size is allocated besides the result:
  * fresh memory is slow to fault in on small virtual machines (docs/sampling.md).
  * @param inputs the scenario's inputs (their [min, max] ranges form the box; not changed)
- * @param evaluate the controller, called with at most batchSize rows at a time
+ * @param source the controller: an evaluator, called with at most batchSize rows at a time, or
+ *   a labeller that also provides the arrays (worker threads label batches in parallel; the
+ *   result is the same bit for bit, as the batches are the same)
  * @param options seed, budget, boundary share, batch size, progress callback
  * @returns exactly `budget` labelled samples
  * @throws ToolError (`SAMPLING_OPTIONS`, `SAMPLING_DIMENSION`, `SAMPLING_EVALUATOR`,
  *   `SAMPLING_SEED`) for bad options, too many inputs, or an evaluator returning too few rows;
  *   whatever the evaluator throws
  */
-export async function sampleDomain(inputs: readonly InputSpec[], evaluate: Evaluator, options: SampleDomainOptions): Promise<SampleSet> {
+export async function sampleDomain(inputs: readonly InputSpec[], source: Evaluator | RowLabeller, options: SampleDomainOptions): Promise<SampleSet> {
   const { seed, budget } = options;
   const boundaryShare = options.boundaryShare ?? BOUNDARY_SHARE_DEFAULT;
   const batchSize = options.batchSize ?? BATCH_SIZE_DEFAULT;
@@ -67,39 +69,52 @@ export async function sampleDomain(inputs: readonly InputSpec[], evaluate: Evalu
   });
   const box: Box = inputs.map((input) => [input.min, input.max] as const);
   const rng = createRng32(seed);
-  const x = new Float64Array(budget * d);
-  const advisory = new Int32Array(budget);
-  const margin = new Float32Array(budget);
+  const labeller = typeof source === 'function' ? evaluatorLabeller(source, d) : source;
+  const arrays = labeller.allocate(budget, d);
+  const { x, advisory, margin } = arrays;
   let filled = 0;
   // the largest advisory seen, for the width of refinement's cell tables
   let maxAdvisory = 0;
 
-  /** Evaluates rows [filled, filled + count) of x, already written, in batches. */
-  async function evaluateNew(count: number): Promise<void> {
-    for (let s = 0; s < count; s += batchSize) {
-      const rows = Math.min(batchSize, count - s);
-      const ev = await evaluate(x.subarray(filled * d, (filled + rows) * d), rows);
-      if (ev.advisory.length < rows || ev.margin.length < rows) {
-        throw new ToolError('SAMPLING_EVALUATOR', `sampleDomain: evaluator returned ${ev.advisory.length} advisories and ${ev.margin.length} margins for ${rows} rows`);
+  /**
+   * Labels rows [filled, filled + count) of x in batches, each written first by `write` when
+   * given (else already written); up to the labeller's concurrency of them at once (worker
+   * threads label while this thread writes the next batch), each finished batch taken in
+   * order, so progress and results do not depend on how many run at once.
+   */
+  async function evaluateNew(count: number, write?: (from: number, rows: number) => void): Promise<void> {
+    const start = filled;
+    const running: Array<Promise<void>> = [];
+    let next = 0;
+    const launch = (): void => {
+      const rows = Math.min(batchSize, count - next);
+      write?.(start + next, rows);
+      const batch = labeller.labelInPlace(arrays, start + next, rows);
+      // handled now, awaited in turn below: a later batch failing first is not an unhandled rejection
+      batch.catch(() => undefined);
+      running.push(batch);
+      next += rows;
+    };
+    try {
+      while (next < count && running.length < labeller.concurrency) launch();
+      while (running.length > 0) {
+        await running.shift();
+        const rows = Math.min(batchSize, count - (filled - start));
+        maxAdvisory = Math.max(maxAdvisory, largest(advisory, filled, filled + rows));
+        filled += rows;
+        options.onProgress?.(filled, budget);
+        if (next < count) launch();
       }
-      advisory.set(ev.advisory.length === rows ? ev.advisory : ev.advisory.subarray(0, rows), filled);
-      maxAdvisory = Math.max(maxAdvisory, largest(advisory, filled, filled + rows));
-      margin.set(ev.margin.length === rows ? ev.margin : ev.margin.subarray(0, rows), filled);
-      filled += rows;
-      options.onProgress?.(filled, budget);
+    } finally {
+      // a failed batch: the others still running must settle before the error goes up
+      await Promise.allSettled(running);
     }
   }
 
   // points are written straight into x: no intermediate arrays (fresh memory is slow to fault in)
   const refineTotal = Math.floor(budget * boundaryShare);
   const initial = budget - refineTotal;
-  // a grid of one cell per axis is just one random point: leave it all to Sobol then
-  const gridBudget = gridCellsPerAxis(Math.floor(initial * GRID_SHARE), d) >= 2 ? Math.floor(initial * GRID_SHARE) : 0;
-  const gridCount = gridInPlace(box, gridBudget, rng, x, 0);
-  const sobolCount = initial - gridCount;
-  sobolInPlace(sobolCount, d, rng, x, gridCount);
-  toBoxInPlace(box, x, gridCount, initial);
-  await evaluateNew(initial);
+  await evaluateNew(initial, spaceFillingRows(box, initial, rng, x));
   // each round looks at the candidates (samples in mixed cells, near-ties) and new points of the
   // round before (all samples at first); two work spaces take turns: one holds the candidates
   // being read, the other the new ones
@@ -111,22 +126,12 @@ export async function sampleDomain(inputs: readonly InputSpec[], evaluate: Evalu
     const need = active.candidates.length + active.to - active.from;
     if (spaces[round % 2]!.length < need) spaces[round % 2] = new Int32Array(need);
     const from = filled;
-    const candidates = refineInPlace(box, { x, advisory, margin, n: filled }, count, round, rng, x, filled, { active, scratch: spaces[round % 2]!, maxAdvisory });
-    await evaluateNew(count);
-    active = { candidates, from, to: filled };
+    // the round's points are made a batch at a time, each labelled while the next is made
+    const made = refineRoundInPlace(box, { x, advisory, margin, n: filled }, count, round, rng, x, filled, { active, scratch: spaces[round % 2]!, maxAdvisory });
+    await evaluateNew(count, (_from, rows) => made.write(rows));
+    active = { candidates: made.candidates, from, to: filled };
   }
   return { d, n: budget, x, advisory, margin, seed };
-}
-
-/** Maps rows [from, to) of x from the unit cube to the box, in place (Sobol points arrive in [0, 1)^d). */
-function toBoxInPlace(box: Box, x: Float64Array, from: number, to: number): void {
-  const d = box.length;
-  const lo = Float64Array.from(box, (b) => b[0]);
-  const width = Float64Array.from(box, (b) => b[1] - b[0]);
-  for (let i = from * d, end = to * d, j = 0; i < end; i++) {
-    x[i] = lo[j]! + x[i]! * width[j]!;
-    if (++j === d) j = 0;
-  }
 }
 
 /** The largest of values[from .. to) (0 when empty). */

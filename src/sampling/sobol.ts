@@ -116,19 +116,40 @@ function checkArguments(n: number, d: number): void {
 export function sobolInPlace(n: number, d: number, rng: Rng | undefined, out: Float64Array, row: number): void {
   checkArguments(n, d);
   checkRoom(out, row, n, d, 'sobol');
-  const v = directionNumbers(d);
+  sobolRangeInPlace(0, n, sobolShift(d, rng), out, row);
+}
+
+/** The digital shift: one seeded 32-bit word per dimension (d draws), or none without rng. */
+export function sobolShift(d: number, rng: Rng | undefined): Int32Array {
   // Int32 storage keeps every word a small integer for the JIT; >>> 0 reads it unsigned
   const shift = new Int32Array(d);
   if (rng) for (let j = 0; j < d; j++) shift[j] = Math.floor(rng() * TWO_POW_32) | 0;
+  return shift;
+}
+
+/**
+ * Points [first, first + n) of the shifted sequence (d = shift.length), written from row `row`
+ * on: point i is the XOR of the direction numbers picked by the bits of its Gray code
+ * i ^ (i >> 1), which is where the Gray-code steps from point 0 arrive; then steps as in
+ * `sobolInPlace`. Lets a sequence be made a batch at a time. Arguments are not checked.
+ */
+export function sobolRangeInPlace(first: number, n: number, shift: Int32Array, out: Float64Array, row: number): void {
+  const d = shift.length;
+  const v = directionNumbers(d);
   const x = new Int32Array(d);
-  for (let i = 0; i < n; i++) {
-    if (i > 0) {
+  const gray = (first ^ (first >>> 1)) >>> 0;
+  for (let b = 0; b < BITS; b++) {
+    if (((gray >>> b) & 1) === 0) continue;
+    for (let j = 0; j < d; j++) x[j] = x[j]! ^ v[j * BITS + b]!;
+  }
+  for (let i = first, end = first + n; i < end; i++) {
+    if (i > first) {
       // Gray-code step: flip direction number c, the index of the lowest zero bit of i − 1
       const m = i - 1;
       const c = 31 - Math.clz32(~m & (m + 1));
       for (let j = 0; j < d; j++) x[j] = x[j]! ^ v[j * BITS + c]!;
     }
-    const at = (row + i) * d;
+    const at = (row + i - first) * d;
     for (let j = 0; j < d; j++) out[at + j] = ((x[j]! ^ shift[j]!) >>> 0) * TWO_POW_MINUS_32;
   }
 }

@@ -71,6 +71,26 @@ describe('Model.evaluate', () => {
     expect(b.margin).toEqual(a.margin);
   });
 
+  it('labels a range of rows in place with the decisions and margins evaluate gives, across batches', async () => {
+    const { scenarioPath } = writeBoxScenario(boxNetwork3d());
+    const scenario = loadScenario(scenarioPath);
+    const n = 1000;
+    const x = weylPoints(scenario.inputs.map((i) => [i.min, i.max] as const), n);
+    const model = await loadModel(scenario, { batchSize: 7 });
+    const whole = await model.evaluate(x, n);
+    const advisory = new Int32Array(n).fill(-1);
+    const margin = new Float32Array(n).fill(-1);
+    // rows [100, 900): 114 full batches of 7 and one of 2, counted from row 100
+    await model.labelInPlace(x, 100, 800, advisory, margin);
+    await model.close();
+    expect(Array.from(advisory.subarray(100, 900))).toEqual(Array.from(whole.advisory.subarray(100, 900)));
+    expect(Array.from(margin.subarray(100, 900))).toEqual(Array.from(whole.margin.subarray(100, 900)));
+    // rows outside the range are left as they were
+    expect(advisory[99]).toBe(-1);
+    expect(margin[900]).toBe(-1);
+    await expect(model.labelInPlace(x, 990, 20, advisory, margin)).rejects.toThrow('labelInPlace: expected rows [990, 1010)');
+  });
+
   it('returns results that later calls do not overwrite', async () => {
     const scenario = scenarioOnDisk({ inputs: INPUTS, advisories: ['a', 'b', 'c'], model: LINEAR });
     const model = await loadModel(scenario);

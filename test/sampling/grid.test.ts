@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { grid, gridCellsPerAxis, gridInPlace } from '../../src/sampling/grid.js';
+import { grid, gridCellsPerAxis, gridInPlace, gridRangeInPlace } from '../../src/sampling/grid.js';
 import { createRng } from '../../src/sampling/rng.js';
 
 describe('gridCellsPerAxis', () => {
@@ -39,6 +39,15 @@ describe('grid', () => {
     expect(gridInPlace([[0, 1], [5, 6]], 20, createRng(3), out, 5)).toBe(16);
     expect(Array.from(out.subarray(10, 42))).toEqual(Array.from(grid([[0, 1], [5, 6]], 20, createRng(3))));
     expect(() => gridInPlace([[0, 1], [5, 6]], 20, createRng(3), out, 15)).toThrow('expected room for 16 rows from row 15, found 30 rows');
+  });
+
+  it('gives the same grid when made in ranges of cells, in order, from one generator', () => {
+    const box = [[0, 1], [5, 6], [-3, 3]] as const;
+    const whole = grid(box, 200, createRng(4)); // 5^3 = 125 cells
+    const parts = new Float64Array(whole.length);
+    const rng = createRng(4);
+    for (const [first, n] of [[0, 7], [7, 1], [8, 60], [68, 57]] as const) gridRangeInPlace(box, 5, first, n, rng, parts, first);
+    expect(Array.from(parts)).toEqual(Array.from(whole));
   });
 
   it('jitters: two seeds give different points in the same cells', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { refine, refineInPlace } from '../../src/sampling/refine.js';
+import { refine, refineInPlace, refineRoundInPlace } from '../../src/sampling/refine.js';
 import { createRng } from '../../src/sampling/rng.js';
 import { uniformInBox } from '../../src/sampling/uniform-in-box.js';
 import { boundaryDistance, circleEvaluator } from './circle-evaluator.js';
@@ -145,5 +145,17 @@ describe('refine', () => {
     expect(() =>
       refine(box, { x: new Float64Array(4), advisory: new Int32Array(3), margin: new Float32Array(3), n: 3 }, 10, 0, createRng(1)),
     ).toThrowErrorMatchingInlineSnapshot(`[ToolError: refine: expected arrays for 3 samples of 2 inputs, found x 4, advisory 3, margin 3]`);
+  });
+
+  it('makes a round\'s points in ranges of rows, the same as at once, seeds or none', async () => {
+    const samples = await labelled(4000, 3);
+    const constant = { ...samples, advisory: new Int32Array(4000) }; // one advisory: no seeds, uniform points
+    for (const [s, round] of [[samples, 0], [samples, 2], [constant, 0]] as const) {
+      const whole = refine(box, s, 1500, round, createRng(7));
+      const parts = new Float64Array(2 * 1500);
+      const made = refineRoundInPlace(box, s, 1500, round, createRng(7), parts, 0);
+      for (const rows of [1, 499, 700, 300]) made.write(rows);
+      expect(Array.from(parts)).toEqual(Array.from(whole));
+    }
   });
 });

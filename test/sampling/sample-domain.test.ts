@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { sampleDomain } from '../../src/sampling/index.js';
+import { evaluatorLabeller, sampleDomain, type RowLabeller } from '../../src/sampling/index.js';
 import type { InputSpec } from '../../src/types.js';
 import { boundaryDistance, circleEvaluator } from './circle-evaluator.js';
 
@@ -93,5 +93,49 @@ describe('sampleDomain', () => {
       margin: new Float32Array(n),
     });
     await expect(sampleDomain(inputs, short, { seed: 1, budget: 10 })).rejects.toThrow('evaluator returned');
+  });
+
+  it('gives the same sample set through a labeller with batches in flight at once, finishing out of order', async () => {
+    const plain = await sampleDomain(inputs, circleEvaluator(), { seed: 11, budget: 9_000, batchSize: 400 });
+    const inner = evaluatorLabeller(circleEvaluator(), 2);
+    const inFlight: number[] = [];
+    let running = 0;
+    let call = 0;
+    const labeller: RowLabeller = {
+      concurrency: 3,
+      allocate: (n, d) => inner.allocate(n, d),
+      async labelInPlace(arrays, from, rows) {
+        inFlight.push(++running);
+        // later calls finish first: 3, 2, 1 event-loop turns of delay in turn
+        for (let t = 3 - (call++ % 3); t > 0; t--) await new Promise((r) => setImmediate(r));
+        await inner.labelInPlace(arrays, from, rows);
+        running--;
+      },
+    };
+    const progress: number[] = [];
+    const set = await sampleDomain(inputs, labeller, { seed: 11, budget: 9_000, batchSize: 400, onProgress: (done) => progress.push(done) });
+    expect(Math.max(...inFlight)).toBe(3);
+    expect(Array.from(set.x)).toEqual(Array.from(plain.x));
+    expect(Array.from(set.advisory)).toEqual(Array.from(plain.advisory));
+    expect(Array.from(set.margin)).toEqual(Array.from(plain.margin));
+    expect(progress.every((v, i) => i === 0 || v > progress[i - 1]!)).toBe(true);
+    expect(progress.at(-1)).toBe(9_000);
+  });
+
+  it("passes on a labeller's failure once the batches still running have settled", async () => {
+    let settled = 0;
+    let calls = 0;
+    const labeller: RowLabeller = {
+      concurrency: 4,
+      allocate: (n, d) => evaluatorLabeller(circleEvaluator(), d).allocate(n, d),
+      async labelInPlace() {
+        const mine = calls++;
+        await new Promise((r) => setImmediate(r));
+        settled++;
+        if (mine === 1) throw new Error('batch 1 failed');
+      },
+    };
+    await expect(sampleDomain(inputs, labeller, { seed: 1, budget: 2_000, batchSize: 100 })).rejects.toThrow('batch 1 failed');
+    expect(settled).toBe(calls);
   });
 });

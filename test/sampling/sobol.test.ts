@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { sobol, sobolInPlace, SOBOL_MAX_DIMENSION } from '../../src/sampling/sobol.js';
+import { sobol, sobolInPlace, sobolRangeInPlace, sobolShift, SOBOL_MAX_DIMENSION } from '../../src/sampling/sobol.js';
 import { createRng } from '../../src/sampling/rng.js';
 
 /*
@@ -45,6 +45,28 @@ describe('sobol', () => {
       1069711360, 2143649792, 3355148288, 2370732032, 1204518912, 3278536704, 2840559616, 2453766144, 1596227584,
       3788210176, 674988032, 507215872,
     ]);
+  });
+
+  it('starts a range at scipy point 123456 (fast_forward) from its Gray code, not by stepping', () => {
+    const d = 21;
+    const out = new Float64Array(2 * d);
+    sobolRangeInPlace(123456, 2, new Int32Array(d), out, 0);
+    // scipy point 123456, × 2^32 (as above)
+    expect(row(out, d, 0).map((v) => v * TWO_POW_32)).toEqual([
+      113803264, 784891904, 1319665664, 1934065664, 726630400, 872972288, 3074457600, 1993113600, 3034218496,
+      1069711360, 2143649792, 3355148288, 2370732032, 1204518912, 3278536704, 2840559616, 2453766144, 1596227584,
+      3788210176, 674988032, 507215872,
+    ]);
+    expect(row(out, d, 1)).toEqual(row(sobol(123458, d), d, 123457));
+  });
+
+  it('gives the whole shifted sequence when made in ranges, from the same shift', () => {
+    const d = 5;
+    const whole = sobol(1000, d, createRng(8));
+    const shift = sobolShift(d, createRng(8));
+    const parts = new Float64Array(1000 * d);
+    for (const [first, n] of [[0, 1], [1, 300], [301, 211], [512, 488]] as const) sobolRangeInPlace(first, n, shift, parts, first);
+    expect(Array.from(parts)).toEqual(Array.from(whole));
   });
 
   it('puts exactly one of the first 2^m shifted points in every elementary interval of the 2-D net', () => {

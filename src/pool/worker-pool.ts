@@ -1,0 +1,139 @@
+import type { Worker } from 'node:worker_threads';
+import { reviveError } from './error-data.js';
+import type { ReplyMessage, TaskMessage } from './pool-protocol.js';
+import { startWorker } from './start-worker.js';
+
+export interface WorkerPoolOptions {
+  /** The caller's `import.meta.url`; the worker module is found beside it (see startWorker). */
+  readonly base: string;
+  /** The worker module's file name without extension, e.g. `./model-worker`. */
+  readonly name: string;
+  /** Given to every worker as `workerData`. */
+  readonly workerData: unknown;
+  /** Number of worker threads (≥ 1). */
+  readonly size: number;
+  /**
+   * Tasks handed to one worker before it reports back (default 1). 1 balances uneven tasks
+   * best; 2 lets a worker start its next task at once instead of waiting for the main thread,
+   * for short, even tasks.
+   */
+  readonly depth?: number;
+}
+
+/** Threads that run tasks of type T to results of type R (see serveTasks for the worker side). */
+export interface WorkerPool<T, R> {
+  readonly size: number;
+  /** Number of workers started so far (ready for tasks). */
+  readonly started: number;
+  /** Resolves once every worker has started (tasks may be given before: they wait). */
+  ready(): Promise<void>;
+  /** Runs one task on the next free worker; rejects with the task's (revived) error. */
+  run(task: T): Promise<R>;
+  /** Stops every worker; tasks still waiting are rejected. */
+  close(): Promise<void>;
+}
+
+interface Pending<R> {
+  readonly resolve: (r: R) => void;
+  readonly reject: (e: Error) => void;
+}
+
+interface Slot {
+  readonly worker: Worker;
+  ready: boolean;
+  inFlight: number;
+}
+
+/**
+ * Starts a pool of worker threads and hands tasks out in the order `run` was called, each to
+ * the ready worker with the fewest tasks in hand (up to `depth`). Callers keep results in their
+ * own order (each `run` has its own promise), so what a task computes must not depend on which
+ * worker runs it. A worker that fails to start, throws outside a task or exits stops the whole
+ * pool: every task waiting or running is rejected with that error.
+ */
+export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
+  const depth = options.depth ?? 1;
+  const queue: Array<{ id: number; task: T }> = [];
+  const pending = new Map<number, Pending<R>>();
+  let nextId = 0;
+  let failure: Error | undefined;
+  let closing = false;
+  let started = 0;
+  const waiting: Array<Pending<void>> = [];
+
+  const fail = (error: Error): void => {
+    if (failure || closing) return;
+    failure = error;
+    queue.length = 0;
+    for (const p of pending.values()) p.reject(error);
+    pending.clear();
+    for (const w of waiting.splice(0)) w.reject(error);
+    for (const s of slots) void s.worker.terminate();
+  };
+
+  const dispatch = (): void => {
+    while (queue.length > 0) {
+      let best: Slot | undefined;
+      for (const s of slots) if (s.ready && s.inFlight < depth && (!best || s.inFlight < best.inFlight)) best = s;
+      if (!best) return;
+      const { id, task } = queue.shift()!;
+      best.inFlight++;
+      best.worker.postMessage({ id, task } satisfies TaskMessage<T>);
+    }
+  };
+
+  const slots: Slot[] = Array.from({ length: options.size }, () => {
+    const slot: Slot = { worker: startWorker(options.base, options.name, options.workerData), ready: false, inFlight: 0 };
+    slot.worker.on('message', (m: ReplyMessage<R>) => {
+      if (m.kind === 'ready') {
+        slot.ready = true;
+        if (++started === options.size) for (const w of waiting.splice(0)) w.resolve();
+      } else if (m.kind === 'failed' && m.id === undefined) {
+        fail(reviveError(m.error));
+        return;
+      } else {
+        slot.inFlight--;
+        const p = pending.get(m.id!);
+        pending.delete(m.id!);
+        if (m.kind === 'done') p?.resolve(m.result);
+        else p?.reject(reviveError(m.error));
+      }
+      dispatch();
+    });
+    slot.worker.on('error', (e) => fail(e));
+    slot.worker.on('exit', (code) => fail(new Error(`worker thread ${options.name} exited with code ${code}`)));
+    return slot;
+  });
+
+  return {
+    size: options.size,
+    get started() {
+      return started;
+    },
+    ready(): Promise<void> {
+      if (failure) return Promise.reject(failure);
+      if (started === options.size) return Promise.resolve();
+      return new Promise<void>((resolve, reject) => waiting.push({ resolve, reject }));
+    },
+    run(task: T): Promise<R> {
+      if (failure) return Promise.reject(failure);
+      if (closing) return Promise.reject(new Error(`worker pool ${options.name} is closed`));
+      return new Promise<R>((resolve, reject) => {
+        const id = nextId++;
+        pending.set(id, { resolve, reject });
+        queue.push({ id, task });
+        dispatch();
+      });
+    },
+    async close(): Promise<void> {
+      if (closing) return;
+      closing = true;
+      const stopped = new Error(`worker pool ${options.name} was closed`);
+      for (const p of pending.values()) p.reject(stopped);
+      pending.clear();
+      for (const w of waiting.splice(0)) w.reject(stopped);
+      queue.length = 0;
+      await Promise.all(slots.map((s) => s.worker.terminate()));
+    },
+  };
+}
