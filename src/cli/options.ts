@@ -15,7 +15,7 @@ export function samplingOptions<T>(y: Argv<T>) {
   return y
     .option('seed', { type: 'number', default: 1, describe: 'seed of every random choice: the same seed gives the same rules' })
     .option('confidence', { type: 'number', default: 0.95, describe: 'confidence of the exact bounds and intervals' })
-    .option('jobs', { type: 'number', default: availableParallelism(), describe: 'worker threads for proving (default: the available cores)' })
+    .option('jobs', { type: 'number', default: availableParallelism(), describe: 'worker threads for sampling, dense checks and proving (default: the available cores)' })
     .option('threads', { type: 'number', default: 1, describe: 'onnxruntime intra-op threads' });
 }
 

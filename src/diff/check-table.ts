@@ -1,5 +1,6 @@
 import type { Model, Rule, RuleTable, Scenario } from '../types.js';
-import { checkRules } from '../check/index.js';
+import { modelJobs } from '../pipeline/model-jobs.js';
+import { WORKER_MIN_EVALUATIONS } from '../pipeline/mine.js';
 import { settleTable } from '../pipeline/settle-table.js';
 import type { MineHooks } from '../pipeline/mine-hooks.js';
 import { toolVersion } from '../version.js';
@@ -14,7 +15,7 @@ export interface CheckTableSettings {
   readonly prove: boolean;
   readonly proveBoxes: number;
   readonly proveSeconds: number;
-  /** Worker threads for proving; default 1 (in this thread). */
+  /** Worker threads for dense checks (when the work outweighs their start-up) and proving; default 1 (in this thread). */
   readonly jobs?: number;
   /** Follow refuted and unknown rules by proven sub-rules (the prover's repair); default false. */
   readonly repair?: boolean;
@@ -54,13 +55,22 @@ export async function checkTable(
   const relabelled = new Map(rules.filter((r) => r.origin.kind === 'repaired').map((r) => [r.id, r.origin]));
   const given = repair ? rules.filter((r) => !relabelled.has(r.id)) : rules.map((r) => (relabelled.has(r.id) ? { ...r, origin: { kind: 'mined' as const } } : r));
   hooks.onStage?.('checking');
-  const checked = await checkRules(given, scenario.inputs, model.evaluate, {
-    seed: settings.seed,
-    samplesPerRule: settings.checkSamples,
-    confidence: settings.confidence,
-    decision: scenario.decision,
-    onProgress: (done, total) => hooks.onProgress?.('checking', done, total),
-  });
+  // dense checks on model worker threads when the work outweighs their start-up (as mine
+  // decides); one rule per task with its own seed, so the evidence is the same for any jobs
+  const work = given.length * settings.checkSamples;
+  const threads = modelJobs(scenario, model, work >= WORKER_MIN_EVALUATIONS ? (settings.jobs ?? 1) : 1);
+  let checked;
+  try {
+    checked = await threads.checkRules(given, {
+      seed: settings.seed,
+      samplesPerRule: settings.checkSamples,
+      confidence: settings.confidence,
+      decision: scenario.decision,
+      onProgress: (done, total) => hooks.onProgress?.('checking', done, total),
+    });
+  } finally {
+    await threads.close();
+  }
   const { tool, version } = toolVersion();
   // jobs changes the speed, never the result, so it is left out of the manifest (as mine does)
   const { jobs: _jobs, ...recorded } = settings;
