@@ -1,6 +1,6 @@
 import { availableParallelism } from 'node:os';
 import type { Model, Scenario } from '../types.js';
-import { costWarning, networkSizeOfModel } from '../scale/index.js';
+import { costWarning, networkSizeOfModel, type CostJob } from '../scale/index.js';
 import type { CliIo } from './io.js';
 import { positiveNumber } from './option-checks.js';
 
@@ -15,20 +15,11 @@ export function timeBudgetOf(value: number | undefined): number | undefined {
   return value === undefined ? undefined : positiveNumber('time-budget', value);
 }
 
-/** What a command knows of its job when it is about to start. */
-export interface JobAtStart {
-  readonly kind: 'mine' | 'check' | 'prove';
-  readonly scenario: Scenario;
-  readonly model: Model;
-  readonly samples: number;
-  readonly fidelitySamples: number;
-  readonly checkSamples: number;
-  readonly rules: number;
-  readonly prove: boolean;
-  readonly proveBoxes: number;
-  readonly proveSeconds: number;
-  readonly jobs: number;
-}
+/**
+ * What a command knows of its job when it is about to start: the cost model's job, with the
+ * scenario and the model in place of the sizes read from them.
+ */
+export type JobAtStart = Omit<CostJob, 'inputs' | 'weights' | 'layers'> & { readonly scenario: Scenario; readonly model: Model };
 
 /**
  * Prints the scaling warning (src/scale, fitted to the curves of docs/scaling.md) on stderr
