@@ -31,9 +31,14 @@ export const REPAIR_PIECES_FLOOR = 10_000;
  */
 export const REPAIR_STEPS_PER_DOMAIN = 2_000;
 export const REPAIR_STEPS_FLOOR = 80;
-/** Sub-rules per rule: at least REPAIR_SUB_RULES_FLOOR, more for large rules (per unit of domain share). */
-export const REPAIR_SUB_RULES_PER_DOMAIN = 100;
-export const REPAIR_SUB_RULES_FLOOR = 16;
+/**
+ * Sub-rules per rule: ⌈v · REPAIR_SUB_RULES_PER_DOMAIN⌉, at least REPAIR_SUB_RULES_FLOOR: the
+ * slabs of large rules are worth sub-rules of their own, a tiny rule's are not (on the demo, a
+ * floor of 16 and 100 per domain gave 273 sub-rules and 86.66 %, this 231 and 86.31 %, in a
+ * sixth less time).
+ */
+export const REPAIR_SUB_RULES_PER_DOMAIN = 400;
+export const REPAIR_SUB_RULES_FLOOR = 4;
 /**
  * Regions dropped by a repair: under 1 % of the rule's box, or under 0.05 % of the domain when
  * that is smaller (a slab of a large rule is worth repairing even if a small share of it).
