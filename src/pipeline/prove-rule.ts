@@ -1,5 +1,5 @@
 import type { CheckedRule, Evidence, Model, Scenario } from '../types.js';
-import { proveBox, type Network } from '../prove/index.js';
+import { proveBox, type Network, type ProveResult } from '../prove/index.js';
 import { counterexampleAt } from './counterexample-at.js';
 
 export interface ProveBudget {
@@ -20,6 +20,17 @@ export interface ProveBudget {
  * disagree (a defect of the prover), the rule stays `refuted` and the proof is only recorded.
  */
 export async function proveRule(net: Network, checked: CheckedRule, scenario: Scenario, model: Model, budget: ProveBudget): Promise<Evidence> {
+  return (await proveRuleWithProof(net, checked, scenario, model, budget)).evidence;
+}
+
+/** proveRule, also returning proveBox's result (its proven pieces seed a repair). */
+export async function proveRuleWithProof(
+  net: Network,
+  checked: CheckedRule,
+  scenario: Scenario,
+  model: Model,
+  budget: ProveBudget,
+): Promise<{ evidence: Evidence; result: ProveResult }> {
   const { rule, evidence } = checked;
   const t0 = budget.now();
   const result = await proveBox(net, rule.box, rule.allowed, scenario.decision, {
@@ -38,14 +49,14 @@ export async function proveRule(net: Network, checked: CheckedRule, scenario: Sc
     margin: result.slack,
   };
   if (result.status === 'proven' && !evidence.counterexample) {
-    return { ...withoutCounterexample(evidence), status: 'proven', proof };
+    return { evidence: { ...withoutCounterexample(evidence), status: 'proven', proof }, result };
   }
   let counterexample = evidence.counterexample;
   if (!counterexample && result.counterexample) {
     counterexample = await counterexampleAt(result.counterexample.x, rule.allowed, model.evaluate, scenario.decision);
   }
-  if (counterexample) return { ...evidence, status: 'refuted', counterexample, proof };
-  return { ...evidence, status: 'unknown', proof };
+  if (counterexample) return { evidence: { ...evidence, status: 'refuted', counterexample, proof }, result };
+  return { evidence: { ...evidence, status: 'unknown', proof }, result };
 }
 
 function withoutCounterexample(e: Evidence): Evidence {

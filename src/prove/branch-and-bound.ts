@@ -6,6 +6,7 @@ import { linearBounds } from './linear.js';
 import { networkBoxInPlace, toScenarioUnits } from './input-box.js';
 import { type ConfirmFn, type ProofCounterexample, confirmCandidates } from './candidates.js';
 import { provingGroup, splitDimension, worstRow } from './split-choice.js';
+import { coverCells } from './cover-cells.js';
 
 /** A closed box, one [min, max] per input, in scenario units. */
 export type Box = ReadonlyArray<readonly [number, number]>;
@@ -26,6 +27,13 @@ export interface ProveOptions {
   readonly batchSize?: number;
   /** Fall back to back-substituted inner bounds when the forward ones fail (default true). */
   readonly refine?: boolean;
+  /**
+   * Pieces already proven by earlier proveBox calls for the same network, allowed set, decision
+   * and normalisation, with a `minMargin` at least this call's (boxes in scenario units). The
+   * part of the box inside them is accepted without bounding and only the rest is searched.
+   * The caller vouches for them: pass only `provenBoxes` of such calls (src/repair does).
+   */
+  readonly known?: readonly Box[];
 }
 
 export interface ProveResult {
@@ -42,6 +50,8 @@ export interface ProveResult {
   /** Pieces too small to split that were neither proven nor refuted. */
   readonly unresolved: number;
   readonly method: string;
+  /** How many of the first `provenBoxes` are parts of `known` pieces (0 without `known`). */
+  readonly reused?: number;
 }
 
 export const PROOF_METHOD = 'branch and bound: interval bounds, then linear relaxation with back-substitution';
@@ -92,6 +102,7 @@ export async function proveBox(net: Network, box: Box, allowed: readonly number[
   let pieces = 0;
   let slack = 0;
   let unresolved = 0;
+  let reused = 0;
   const accept = (p: Piece): void => {
     proven += fraction(p);
     provenBoxes.push(Array.from(p.lo, (v, i) => [v, p.hi[i]!] as const));
@@ -105,6 +116,7 @@ export async function proveBox(net: Network, box: Box, allowed: readonly number[
     slack,
     unresolved,
     method: PROOF_METHOD,
+    reused,
   });
   if (spec.rows === 0) {
     accept(root);
@@ -112,10 +124,21 @@ export async function proveBox(net: Network, box: Box, allowed: readonly number[
   }
   // first in, first out: larger pieces are bounded before their smaller descendants
   let queue: Piece[] = [root];
+  if (options.known !== undefined && options.known.length > 0) {
+    // cells of the box inside a known piece are proven already; the others are searched
+    queue = [];
+    coverCells(box, options.known, (lo, hi, covered) => {
+      const cell = { lo: Float64Array.from(lo), hi: Float64Array.from(hi) };
+      if (covered) accept(cell);
+      else queue.push(cell);
+    });
+    reused = provenBoxes.length;
+    queue.sort((a, b) => fraction(b) - fraction(a));
+  }
   let head = 0;
   while (head < queue.length) {
     if (pieces >= options.maxBoxes || options.now() - start > options.maxSeconds * 1000) break;
-    const nb = Math.min(batchSize, options.maxBoxes - pieces, queue.length - head);
+    const nb = Math.min(batchSize, Math.ceil(options.maxBoxes - pieces), queue.length - head);
     const batch = queue.slice(head, head + nb);
     head += nb;
     if (head > 4096 && head * 2 > queue.length) {

@@ -15,6 +15,7 @@ export type { LinearBounds, LinearOptions } from './linear.js';
 export { networkBoxInPlace, toNetworkInput } from './input-box.js';
 export { proveBox, PROOF_METHOD } from './branch-and-bound.js';
 export type { Box, ProveOptions, ProveResult } from './branch-and-bound.js';
+export { coverCells, type CellVisitor } from './cover-cells.js';
 export type { ConfirmFn, ProofCounterexample } from './candidates.js';
 export {
   ACTIVATION_ABS_ERROR,

@@ -30,6 +30,11 @@ export function checkRepairInput(net: Network, rule: Rule, scenario: RepairScena
   if (!(Number.isInteger(options.maxBoxesPerProof) && options.maxBoxesPerProof >= 1)) {
     throw optionError('maxBoxesPerProof', 'a whole number >= 1', options.maxBoxesPerProof);
   }
+  if (options.maxPieces !== undefined && !(options.maxPieces >= 0)) throw optionError('maxPieces', 'a number >= 0', options.maxPieces);
+  if (options.maxSteps !== undefined && !(options.maxSteps >= 0)) throw optionError('maxSteps', 'a number >= 0', options.maxSteps);
+  if (options.known !== undefined && options.known.some((b) => b.length !== d)) {
+    throw optionError('known', `boxes of ${d} input ranges`, options.known.find((b) => b.length !== d)?.length);
+  }
   const { maxSubRules, minVolumeShare, screenPoints, clearanceShare, allowanceShare, samples } = options;
   if (maxSubRules !== undefined && !(Number.isInteger(maxSubRules) && maxSubRules >= 1)) {
     throw optionError('maxSubRules', 'a whole number >= 1', maxSubRules);

@@ -8,7 +8,7 @@ export type { RepairEvent } from './repair-context.js';
 export { readableCut, readableMiddle, type ReadableCutLimits, type Side } from './readable-cut.js';
 export { unionVolume } from './union-volume.js';
 export { uncoveredBoxes } from './uncovered-boxes.js';
-export { coverCells, type CellVisitor } from './cover-cells.js';
+export { coverCells, type CellVisitor } from '../prove/index.js';
 export { NEIGHBOURHOOD_POINTS, NEIGHBOURHOOD_SHARE } from './peel-and-prove.js';
 export { CUT_LOSS_PRIOR, CUTS_PER_FACE } from './plan-main-box.js';
 export { provenCoverage, type ProvenCoverage } from './proven-coverage.js';

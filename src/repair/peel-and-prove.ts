@@ -2,7 +2,7 @@ import type { Box, ProveResult } from '../prove/index.js';
 import { boxShare } from './box-share.js';
 import { PointKind, appendPointsInPlace, screeningPoints } from './guide-points.js';
 import { planMainBox } from './plan-main-box.js';
-import { type RepairContext, addLabelledPoints, proveIn, timeLeft } from './repair-context.js';
+import { type RepairContext, addLabelledPoints, budgetLeft, proveIn } from './repair-context.js';
 import { separatingCut } from './separating-cut.js';
 import { splitWhereUnproven } from './split-where-unproven.js';
 import { uncoveredBoxes } from './uncovered-boxes.js';
@@ -34,6 +34,8 @@ export interface PeelOptions {
   readonly maxSubRules: number;
   /** Regions below this share of the rule's box are dropped, not repaired. */
   readonly minVolumeShare: number;
+  /** Disjoint regions inside the rule's box to start from (default: the rule's box). */
+  readonly start?: readonly Box[];
 }
 
 /** A proven box with the proof that proved it. */
@@ -60,14 +62,15 @@ export interface ProvenPart {
 export async function peelAndProve(ctx: RepairContext, options: PeelOptions): Promise<ProvenPart[]> {
   const d = ctx.ruleBox.length;
   const kept: ProvenPart[] = [];
-  const work: WorkItem[] = [{ box: ctx.ruleBox, slab: false, strikes: 0 }];
+  const work: WorkItem[] = (options.start ?? [ctx.ruleBox]).map((box) => ({ box, slab: false, strikes: 0 }));
   const reserve: WorkItem[] = [];
   const share = (b: Box): number => boxShare(b, ctx.ruleBox);
-  while (work.length > 0 && kept.length < options.maxSubRules && timeLeft(ctx) > 0) {
+  while (work.length > 0 && kept.length < options.maxSubRules && budgetLeft(ctx)) {
     let pick = 0;
     for (let k = 1; k < work.length; k++) if (share(work[k]!.box) > share(work[pick]!.box)) pick = k;
     const item = work.splice(pick, 1)[0]!;
     const region = item.box;
+    ctx.steps++;
     if (share(region) < options.minVolumeShare) {
       // too small alone; a slab stays in reserve in case a later slab joins it
       if (item.slab) reserve.push(item);
@@ -104,7 +107,7 @@ export async function peelAndProve(ctx: RepairContext, options: PeelOptions): Pr
       appendPointsInPlace(ctx.points, c, [PointKind.violation], 1);
       await sampleNeighbourhoods(ctx, region, c, 1);
       work.push({ box: region, slab: false, strikes: item.strikes + 1 });
-    } else if (timeLeft(ctx) > 0) {
+    } else if (budgetLeft(ctx)) {
       const open = uncoveredBoxes(region, proof.provenBoxes);
       const centres = new Float64Array(open.length * d);
       open.forEach((b, k) => b.forEach(([lo, hi], i) => (centres[k * d + i] = lo + (hi - lo) / 2)));

@@ -25,6 +25,17 @@ export interface RepairContext {
   /** Clock reading (ms) after which no new proof starts. */
   readonly deadline: number;
   readonly maxBoxesPerProof: number;
+  /** Pieces all proofs together may bound (Infinity: only the clock limits). */
+  readonly maxPieces: number;
+  /** Regions the repair may take from its work list (Infinity: no limit). */
+  readonly maxSteps: number;
+  /** Regions taken so far. */
+  steps: number;
+  /**
+   * Pieces proven so far for this rule's allowed set (earlier proofs of this repair, and any the
+   * caller passed): each proof accepts the part of its box inside them without bounding it.
+   */
+  readonly known: Box[];
   readonly limits: readonly ReadableCutLimits[];
   readonly rng: Rng;
   readonly points: GuidePoints;
@@ -38,6 +49,11 @@ export interface RepairContext {
 /** Milliseconds left before the deadline (0 when past it). */
 export function timeLeft(ctx: RepairContext): number {
   return Math.max(0, ctx.deadline - ctx.now());
+}
+
+/** Whether another step or proof may start: time, a whole piece and a step left. */
+export function budgetLeft(ctx: RepairContext): boolean {
+  return timeLeft(ctx) > 0 && Math.floor(ctx.maxPieces - ctx.pieces) >= 1 && ctx.steps < ctx.maxSteps;
 }
 
 /**
@@ -59,16 +75,33 @@ export async function addLabelledPoints(ctx: RepairContext, x: Float64Array, m: 
   return violations;
 }
 
-/** Runs proveBox on exactly `box` with the per-proof budget and the time left; counts its pieces. */
+/**
+ * Runs proveBox on exactly `box` with the per-proof budget (no more than the pieces left) and the
+ * time left, reusing the pieces proven so far (`ctx.known`); counts its pieces and adds the
+ * pieces it proved to `ctx.known` (a proven box replaces the known pieces inside it).
+ */
 export async function proveIn(ctx: RepairContext, box: Box): Promise<ProveResult> {
   const result = await proveBox(ctx.net, box, ctx.allowed, ctx.decision, {
-    maxBoxes: ctx.maxBoxesPerProof,
+    maxBoxes: Math.max(0, Math.floor(Math.min(ctx.maxBoxesPerProof, ctx.maxPieces - ctx.pieces))),
     maxSeconds: timeLeft(ctx) / 1000,
     now: ctx.now,
     confirm: ctx.confirm,
+    known: ctx.known,
     ...(ctx.normalize !== undefined ? { normalize: ctx.normalize } : {}),
   });
   ctx.pieces += result.pieces;
   ctx.attempts++;
+  if (result.status === 'proven') {
+    const outside = ctx.known.filter((k) => !boxInside(k, box));
+    ctx.known.length = 0;
+    ctx.known.push(...outside, box);
+  } else {
+    for (let k = result.reused ?? 0; k < result.provenBoxes.length; k++) ctx.known.push(result.provenBoxes[k]!);
+  }
   return result;
+}
+
+/** Whether closed box a lies inside closed box b. */
+function boxInside(a: Box, b: Box): boolean {
+  return a.every(([lo, hi], i) => lo >= b[i]![0] && hi <= b[i]![1]);
 }

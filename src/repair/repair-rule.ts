@@ -1,6 +1,6 @@
 import { ToolError } from '../errors.js';
 import type { Decision, InputSpec, Normalization, Rule } from '../types.js';
-import type { ConfirmFn, Network, ProveResult } from '../prove/index.js';
+import type { Box, ConfirmFn, Network, ProveResult } from '../prove/index.js';
 import { READABLE_STEP_MIN_FRACTION, readableSteps, sortRules } from '../rules/index.js';
 import { createRng } from '../sampling/index.js';
 import { boxShare } from './box-share.js';
@@ -49,6 +49,16 @@ export interface RepairOptions {
   readonly maxSeconds: number;
   /** Piece budget of each proveBox call. */
   readonly maxBoxesPerProof: number;
+  /**
+   * Pieces all proofs of the repair may bound together (default: no limit but the clock). A
+   * piece budget makes the result independent of the machine's speed and load.
+   */
+  readonly maxPieces?: number;
+  /**
+   * Pieces already proven for this rule's allowed set by proveBox (e.g. `provenBoxes` of the
+   * rule's own proof): the repair's proofs accept what lies inside them without bounding it.
+   */
+  readonly known?: readonly Box[];
   readonly maxSubRules?: number;
   /** Share of the rule's box below which a region is dropped rather than repaired. */
   readonly minVolumeShare?: number;
@@ -57,6 +67,11 @@ export interface RepairOptions {
   readonly screenPoints?: number;
   readonly clearanceShare?: number;
   readonly allowanceShare?: number;
+  /**
+   * Regions the repair may take from its work list (screen, plan, search, prove) in all; with
+   * `maxPieces` it bounds the repair's work without a clock (default: no limit).
+   */
+  readonly maxSteps?: number;
   /** Seed of the screening points (runs are reproducible given the same proof outcomes). */
   readonly seed?: number;
   /** Called at each step (plan, search, proof, drop); must not throw. */
@@ -75,6 +90,8 @@ export interface RepairResult {
   readonly proofs: ProveResult[];
   /** proveBox calls made, failed ones included. */
   readonly attempts: number;
+  /** Regions taken from the work list (see `maxSteps`). */
+  readonly steps: number;
 }
 
 /**
@@ -113,6 +130,10 @@ export async function repairRule(net: Network, rule: Rule, scenario: RepairScena
     now: options.now,
     deadline: start + options.maxSeconds * 1000,
     maxBoxesPerProof: options.maxBoxesPerProof,
+    maxPieces: options.maxPieces ?? Infinity,
+    maxSteps: options.maxSteps ?? Infinity,
+    steps: 0,
+    known: [...(options.known ?? [])],
     limits,
     rng: createRng(options.seed ?? REPAIR_DEFAULTS.seed),
     points: emptyGuidePoints(d),
@@ -128,18 +149,18 @@ export async function repairRule(net: Network, rule: Rule, scenario: RepairScena
       appendPointsInPlace(ctx.points, given.x.subarray(r * d, r * d + d), [kind], 1);
     }
   }
-  const peeled = await peelAndProve(ctx, {
+  const peel = {
     screenPoints: options.screenPoints ?? REPAIR_DEFAULTS.screenPoints,
     maxSubRules: options.maxSubRules ?? REPAIR_DEFAULTS.maxSubRules,
     minVolumeShare: options.minVolumeShare ?? REPAIR_DEFAULTS.minVolumeShare,
-  });
-  const parts = await mergeProven(ctx, peeled);
+  };
+  const parts = (await mergeProven(ctx, await peelAndProve(ctx, peel))).map((p) => ({ ...p, allowed: rule.allowed }));
   const origin = { kind: 'repaired', from: rule.id } as const;
-  const proofOf = new Map(parts.map((p) => [p.box, p.proof]));
-  const ordered = sortRules(parts.map((p) => ({ id: '', box: p.box, allowed: rule.allowed, origin })));
-  const proofs = ordered.map((r) => proofOf.get(r.box)!);
-  // soundness guard: every sub-rule carries the proof of exactly its own box
-  if (proofs.some((p) => p === undefined || p.status !== 'proven')) {
+  const partOf = new Map(parts.map((p) => [p.box, p]));
+  const ordered = sortRules(parts.map((p) => ({ id: '', box: p.box, allowed: p.allowed, origin })));
+  const proofs = ordered.map((r) => partOf.get(r.box)!.proof);
+  // soundness guard: every sub-rule carries the proof of exactly its own box and allowed set
+  if (ordered.some((r, k) => partOf.get(r.box)?.allowed !== r.allowed || proofs[k]?.status !== 'proven')) {
     throw new ToolError('REPAIR_INTERNAL', `repair of ${rule.id}: a sub-rule lacks its proof`);
   }
   let provenVolumeFraction = 0;
@@ -151,5 +172,6 @@ export async function repairRule(net: Network, rule: Rule, scenario: RepairScena
     seconds: (options.now() - start) / 1000,
     proofs,
     attempts: ctx.attempts,
+    steps: ctx.steps,
   };
 }

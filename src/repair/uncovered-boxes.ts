@@ -1,5 +1,5 @@
 import type { Box } from '../prove/index.js';
-import { coverCells } from './cover-cells.js';
+import { coverCells } from '../prove/index.js';
 
 /**
  * The part of a region outside every given box, as disjoint closed boxes (the uncovered cells of

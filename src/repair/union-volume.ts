@@ -1,5 +1,5 @@
 import type { Box } from '../prove/index.js';
-import { coverCells } from './cover-cells.js';
+import { coverCells } from '../prove/index.js';
 
 /**
  * The volume of the union of closed boxes inside a region, exactly (up to float64 rounding of

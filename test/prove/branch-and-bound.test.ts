@@ -185,4 +185,63 @@ describe('proveBox', () => {
       { seed: 20240611, numRuns: 40 },
     );
   });
+
+  it('reuses pieces an earlier proof proved: the part of a box inside them costs nothing', async () => {
+    const ort = await ortAdvisor(tentBytes, 1, 'argmax');
+    const opts = { maxSeconds: 60, now: clock(), confirm: ort.confirm };
+    // a budget-limited proof of [0.5, 2] proves most of the box but not the edge at the tie
+    const first = await proveBox(tent, [[0.5, 2]], [0], 'argmax', { ...opts, maxBoxes: 40 });
+    expect(first.status).toBe('unknown');
+    expect(first.reused).toBe(0);
+    // [0.75, 2] lies in the part proven already: proven without bounding a piece
+    const inside = await proveBox(tent, [[0.75, 2]], [0], 'argmax', { ...opts, maxBoxes: 1000, known: first.provenBoxes });
+    expect([inside.status, inside.pieces, inside.provenVolumeFraction]).toEqual(['proven', 0, 1]);
+    expect(inside.reused).toBe(inside.provenBoxes.length);
+    // [0.51, 2]: only the part below the first proof's pieces is searched, in fewer pieces than alone
+    const alone = await proveBox(tent, [[0.51, 2]], [0], 'argmax', { ...opts, maxBoxes: 1000 });
+    const reusing = await proveBox(tent, [[0.51, 2]], [0], 'argmax', { ...opts, maxBoxes: 1000, known: first.provenBoxes });
+    expect([alone.status, reusing.status]).toEqual(['proven', 'proven']);
+    expect(reusing.pieces).toBeLessThan(alone.pieces);
+    // the proven pieces tile the box: summed lengths equal its length (float64 sums of a few
+    // dozen lengths; 1e-12 is far below any piece and far above their rounding)
+    const covered = reusing.provenBoxes.reduce((t, b) => t + volume(b), 0);
+    expect(Math.abs(covered - volume([[0.51, 2]]))).toBeLessThan(1e-12);
+    for (const b of reusing.provenBoxes) expect(b[0]![0] >= 0.51 && b[0]![1] <= 2).toBe(true);
+    // a box reaching past the known pieces into the violation is still refuted
+    const past = await proveBox(tent, [[0.4, 2]], [0], 'argmax', { ...opts, maxBoxes: 1000, known: first.provenBoxes });
+    expect(past.status).toBe('refuted');
+    expect(Array.from(await ort.confirm(Float64Array.from(past.counterexample!.x), 1))).toEqual([1]);
+    await ort.release();
+  });
+
+  it('with known pieces of earlier proofs, never proves a piece that dense runtime sampling refutes (random networks, seeded)', async () => {
+    await fc.assert(
+      fc.asyncProperty(fc.integer({ min: 1, max: 2 ** 31 - 1 }), fc.integer({ min: 1, max: 3 }), async (seed, d) => {
+        const rng = mulberry32(seed);
+        const bytes = writeMlpOnnx(randomMlp(rng, [d, 8, 8, 3], 1.5));
+        const net = read(bytes);
+        const lo = Array.from({ length: d }, () => Math.fround(-1 + rng()));
+        const hi = lo.map((v) => Math.fround(v + 0.05 + 2 * rng()));
+        const ort = await ortAdvisor(bytes, d, 'argmax');
+        const centre = (await ort.confirm(Float64Array.from(lo, (v, i) => (v + hi[i]!) / 2), 1))[0]!;
+        const opts = { maxSeconds: 600, now: clock(), confirm: ort.confirm };
+        const first = await proveBox(net, lo.map((v, i) => [v, hi[i]!] as const), [centre], 'argmax', { ...opts, maxBoxes: 100 });
+        // a second box overlapping the first one, shifted by up to a third of its width
+        const box = lo.map((v, i) => {
+          const s = (rng() - 0.5) * (2 / 3) * (hi[i]! - v);
+          return [v + s, hi[i]! + s] as const;
+        });
+        const res = await proveBox(net, box, [centre], 'argmax', { ...opts, maxBoxes: 100, known: first.provenBoxes });
+        for (const b of res.provenBoxes) {
+          b.forEach(([a, z], i) => expect(a >= box[i]![0] && z <= box[i]![1]).toBe(true));
+          const pts = samplePoints(rng, b.map((r) => r[0]), b.map((r) => r[1]), 200);
+          const adv = await ort.confirm(pts, 200);
+          expect(adv.every((a) => a === centre)).toBe(true);
+        }
+        if (res.status === 'refuted') expect(Array.from(await ort.confirm(Float64Array.from(res.counterexample!.x), 1))[0]).not.toBe(centre);
+        await ort.release();
+      }),
+      { seed: 20261202, numRuns: 30 },
+    );
+  });
 });

@@ -107,6 +107,24 @@ describe('repairRule', () => {
     expect(big.provenVolumeFraction).toBeGreaterThanOrEqual(0.3);
   });
 
+  it('stays within maxPieces and maxSteps, and reuses pieces proven before it started', async () => {
+    const n = await load(nets.pocket);
+    const parent = rule('R8', [[0, 10], [0, 10]], [0]);
+    const none = await repair(nets.pocket, parent, { maxSteps: 0 });
+    expect([none.subRules.length, none.steps, none.attempts, none.pieces]).toEqual([0, 0, 0, 0]);
+    const capped = await repair(nets.pocket, parent, { maxPieces: 300 });
+    expect(capped.pieces).toBeLessThanOrEqual(300);
+    // the rule's own proof (as settleRule runs it) proves pieces away from the pocket; a repair
+    // given them bounds fewer pieces for sub-rules that cover at least as much
+    const own = await proveBox(n.network, parent.box, parent.allowed, n.scenario.decision, { maxBoxes: 2000, maxSeconds: 1e6, now: frozenClock, confirm: n.confirm });
+    expect(own.status).not.toBe('proven');
+    const alone = await repair(nets.pocket, parent);
+    const seeded = await repair(nets.pocket, parent, { known: own.provenBoxes });
+    expect(seeded.pieces).toBeLessThan(alone.pieces);
+    expect(seeded.subRules.length).toBeGreaterThan(0);
+    expect(seeded.proofs.every((p) => p.status === 'proven')).toBe(true);
+  });
+
   it('returns only sub-rules that re-prove and that dense onnxruntime sampling does not refute', async () => {
     const cases: Array<[TestNet, Rule]> = [
       [nets.box2d, rule('S1', [[0, 10], [0, 10]], [0, 1])],

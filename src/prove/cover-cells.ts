@@ -1,4 +1,4 @@
-import type { Box } from '../prove/index.js';
+import type { Box } from './branch-and-bound.js';
 
 /** Receives one cell: its corners (read them before returning) and whether the boxes cover it. */
 export type CellVisitor = (lo: Float64Array, hi: Float64Array, covered: boolean) => void;
