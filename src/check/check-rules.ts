@@ -1,5 +1,5 @@
 import type { CheckedRule, Counterexample, Decision, Evaluator, InputSpec, Rule } from '../types.js';
-import { boxSurfacePoints, uniformInBox } from '../sampling/index.js';
+import { boxSurfacePoints } from '../sampling/index.js';
 import { createRng } from '../sampling/rng.js';
 import { clopperPearsonUpper } from './clopper-pearson.js';
 import { boxVolumeFraction } from './box-volume.js';
@@ -16,7 +16,19 @@ export interface CheckOptions {
   readonly confidence: number;
   readonly decision: Decision;
   readonly onProgress?: (done: number, total: number) => void;
+  /**
+   * Rows per evaluator call (default CHECK_CHUNK_ROWS). A multiple of the model's batch keeps
+   * the onnxruntime calls those of evaluating the whole set at once.
+   */
+  readonly chunkRows?: number;
 }
+
+/**
+ * Rows of a rule's dense samples made and evaluated at a time: the model stage's default batch
+ * (DEFAULT_BATCH_SIZE in src/model), so the evaluator's onnxruntime calls are the ones it makes
+ * for the whole set, and a rule's evidence does not depend on this constant.
+ */
+export const CHECK_CHUNK_ROWS = 16_384;
 
 /**
  * Default share of a rule's dense samples on the faces and corners of its box: boundaries are
@@ -44,45 +56,64 @@ export async function checkRules(
 ): Promise<CheckedRule[]> {
   const d = inputs.length;
   const surfaceShare = options.surfaceShare ?? SURFACE_SHARE_DEFAULT;
+  const chunkRows = options.chunkRows ?? CHECK_CHUNK_ROWS;
   const out: CheckedRule[] = [];
+  // one chunk of points, reused for every chunk of every rule: fresh memory costs a page fault
+  // per 4 KiB on first touch, which dominated dense checks and does not parallelise over threads
+  const chunk = new Float64Array(chunkRows * d);
+  const lo = new Float64Array(d);
+  const width = new Float64Array(d);
   for (let r = 0; r < rules.length; r++) {
     const rule = rules[r]!;
     const rng = createRng(deriveSeed(options.seed, `check:${rule.id}`));
     const nSurface = Math.floor(options.samplesPerRule * surfaceShare);
     const nUniform = options.samplesPerRule - nSurface;
-    const inside = uniformInBox(rule.box, nUniform, rng);
-    const surface = boxSurfacePoints(rule.box, nSurface, rng);
     const n = nUniform + nSurface;
-    const x = new Float64Array(n * d);
-    x.set(inside, 0);
-    x.set(surface.subarray(0, nSurface * d), nUniform * d);
-    const ev = await evaluate(x, n);
-    const k = ev.scores.length / n;
-    const allowedMask = new Uint8Array(k);
-    for (const a of rule.allowed) allowedMask[a] = 1;
-    let violations = 0;
-    let worstRow = -1;
-    let worstMargin = 0;
-    for (let i = 0; i < n; i++) {
-      if (allowedMask[ev.advisory[i]!] === 1) continue;
-      // A tie between the winner and an allowed advisory is not a violation: the allowed
-      // advisory is among the network's best answers (see docs/checking.md).
-      const m = violationMargin(ev.scores, i, k, allowedMask, options.decision);
-      if (!(m > 0)) continue;
-      violations++;
-      if (worstRow < 0 || m > worstMargin) {
-        worstRow = i;
-        worstMargin = m;
-      }
+    for (let j = 0; j < d; j++) {
+      lo[j] = rule.box[j]![0];
+      width[j] = rule.box[j]![1] - rule.box[j]![0];
     }
+    // the surface points are drawn after every uniform point (the order of the whole-set draw),
+    // i.e. when the first chunk reaching them is filled
+    let surface: Float64Array | undefined;
+    let allowedMask: Uint8Array | undefined;
+    let violations = 0;
+    let worstMargin = 0;
     let counterexample: Counterexample | undefined;
-    if (worstRow >= 0) {
-      counterexample = {
-        x: Array.from(x.subarray(worstRow * d, worstRow * d + d)),
-        scores: Array.from(ev.scores.subarray(worstRow * k, worstRow * k + k)),
-        advisory: ev.advisory[worstRow]!,
-        margin: worstMargin,
-      };
+    for (let start = 0; start < n; start += chunkRows) {
+      const rows = Math.min(chunkRows, n - start);
+      for (let i = 0; i < rows; i++) {
+        const row = start + i;
+        if (row < nUniform) {
+          for (let j = 0; j < d; j++) chunk[i * d + j] = lo[j]! + rng() * width[j]!;
+        } else {
+          surface ??= boxSurfacePoints(rule.box, nSurface, rng);
+          chunk.set(surface.subarray((row - nUniform) * d, (row - nUniform + 1) * d), i * d);
+        }
+      }
+      const ev = await evaluate(chunk.subarray(0, rows * d), rows);
+      const k = ev.scores.length / rows;
+      if (!allowedMask) {
+        allowedMask = new Uint8Array(k);
+        for (const a of rule.allowed) allowedMask[a] = 1;
+      }
+      for (let i = 0; i < rows; i++) {
+        if (allowedMask[ev.advisory[i]!] === 1) continue;
+        // A tie between the winner and an allowed advisory is not a violation: the allowed
+        // advisory is among the network's best answers (see docs/checking.md).
+        const m = violationMargin(ev.scores, i, k, allowedMask, options.decision);
+        if (!(m > 0)) continue;
+        violations++;
+        if (counterexample === undefined || m > worstMargin) {
+          worstMargin = m;
+          counterexample = {
+            x: Array.from(chunk.subarray(i * d, i * d + d)),
+            scores: Array.from(ev.scores.subarray(i * k, i * k + k)),
+            advisory: ev.advisory[i]!,
+            margin: m,
+          };
+        }
+      }
     }
     out.push({
       rule,
