@@ -216,8 +216,8 @@ export async function run(): Promise<string> {
 sample set takes ${8 * D + 8} bytes a sample (x as float64, advisory, margin); docs/sampling.md says what else
 the peak holds.
 
-| samples | --jobs | peak RSS (MB) | bytes a sample | wall (s) |
-| ---: | ---: | ---: | ---: | ---: |
+| samples | --jobs | peak RSS (MB) | bytes a sample | stated bound (MB) | wall (s) |
+| ---: | ---: | ---: | ---: | ---: | ---: |
 ${memory.join('\n')}
 `;
   return `## Sampling
