@@ -1,3 +1,4 @@
+import { noChangeRulesText } from './no-change-rules.js';
 import { formatRule } from '../rules/index.js';
 import { CAUTIONS } from '../report/index.js';
 import { CHANGE_LABELS, REGRESSION_VERDICTS, type DiffResult } from './diff-result.js';
@@ -48,7 +49,7 @@ export function diffMdText(result: DiffResult, gates: readonly GateOutcome[]): s
   );
   result.confusion.forEach((row, a) => L.push(`| \`${advisories[a]}\` | ${row.map((c, b) => (a === b ? count(c) : `**${count(c)}**`)).join(' | ')} |`));
   L.push('', '### Change rules', '');
-  if (result.changeRules.length === 0) L.push('No change rules: the samples of both models showed no region where the advisory changed.');
+  if (result.changeRules.length === 0) L.push(`No change rules: ${noChangeRulesText(result.changed)}.`);
   else {
     L.push(
       `Recall ${pctInterval(result.capture.recall, 1)} (share of changed samples inside a change rule); ` +

@@ -1,3 +1,4 @@
+import { noChangeRulesText } from './no-change-rules.js';
 import { formatRule } from '../rules/index.js';
 import { cautionsText } from '../report/index.js';
 import { CHANGE_LABELS, REGRESSION_VERDICTS, type DiffResult } from './diff-result.js';
@@ -45,7 +46,7 @@ export function diffSummaryText(result: DiffResult, gates: readonly GateOutcome[
       L.push(`  ${formatRule(c.rule, inputs, CHANGE_LABELS)}  [${pct(c.changed.value, 1)} of the box changed${main}]`);
     }
     if (result.changeRules.length > shown.length) L.push(`  … ${result.changeRules.length - shown.length} more (all in diff.md)`);
-  } else L.push('where it changed: no change rules (no changed region found in the samples)');
+  } else L.push(`where it changed: no change rules (${noChangeRulesText(result.changed)})`);
   for (const g of gates) L.push(`gate ${g.gate}: ${g.tripped ? 'TRIPPED' : 'passed'} (${g.reason})`);
   for (const n of result.notes) L.push(`note: ${n}`);
   L.push('', 'files:', ...files.map((f) => `  ${f}`), '', cautionsText());
