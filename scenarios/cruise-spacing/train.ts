@@ -1,7 +1,8 @@
 /**
  * Trains the cruise-spacing demo network on the expert policy and writes model.onnx.
  *
- *   npx tsx scenarios/cruise-spacing/train.ts
+ *   npx tsx scenarios/cruise-spacing/train.ts               (model.onnx)
+ *   npx tsx scenarios/cruise-spacing/train.ts --retrained   (retrained.onnx: another seed, 20 epochs)
  *
  * Deterministic for the settings below (seeded sampling, initialisation and shuffling). Prints
  * per-epoch progress and the agreement with the policy on a fresh uniform sample; the same
@@ -19,7 +20,7 @@ import { ADVISORIES } from './policy.js';
 import { CRUISE_SPACING_BOX } from './policy-boundaries.js';
 import { samplePolicy } from './sample-policy.js';
 
-const TRAINING = {
+const DEMO_TRAINING = {
   seed: 15622,
   uniform: 100_000,
   nearBoundary: 100_000,
@@ -30,6 +31,13 @@ const TRAINING = {
   learningRate: 3e-3,
   finalLearningRate: 5e-5,
 } as const;
+/**
+ * `--retrained` writes retrained.onnx instead: the same policy and network shape, another seed
+ * and half the epochs, as a training team's next candidate might be (the "After retraining"
+ * step of docs/walkthrough.md diffs it against model.onnx).
+ */
+const RETRAINED = process.argv.includes('--retrained');
+const TRAINING = RETRAINED ? { ...DEMO_TRAINING, seed: 15623, epochs: 20 } : DEMO_TRAINING;
 const EVALUATION = { seed: 7, samples: 1_000_000 } as const;
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -83,7 +91,7 @@ const summary = [
   `per advisory (policy's advisory, share where the network agrees): ${perAdvisory.join('; ')}`,
 ];
 const docString = [
-  'Cruise-spacing demo controller (Specula demo scenario; not a vehicle controller).',
+  `Cruise-spacing demo controller${RETRAINED ? ', retrained candidate' : ''} (Specula demo scenario; not a vehicle controller).`,
   `Trained by scenarios/cruise-spacing/train.ts on scenarios/cruise-spacing/policy.ts: ${train.n} samples, ` +
     `3-${TRAINING.hidden.join('-')}-5 ReLU MLP, Adam, ${TRAINING.epochs} epochs, batch ${TRAINING.batchSize}, ` +
     `learning rate ${TRAINING.learningRate} cosine-annealed to ${TRAINING.finalLearningRate}, seed ${TRAINING.seed}.`,
@@ -91,7 +99,7 @@ const docString = [
   ...summary,
 ].join('\n');
 
-const target = join(here, 'model.onnx');
+const target = join(here, RETRAINED ? 'retrained.onnx' : 'model.onnx');
 writeFileSync(target + '.tmp', writeMlpOnnx(layers, { docString, graphName: 'cruise_spacing_advisory' }));
 renameSync(target + '.tmp', target);
 process.stdout.write(`${summary.join('\n')}\ntrained in ${trainSeconds.toFixed(0)} s; wrote ${target}\n`);

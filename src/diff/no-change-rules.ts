@@ -10,5 +10,5 @@ import { pct } from './format-figures.js';
  */
 export function noChangeRulesText(changed: Proportion): string {
   if (changed.value === 0) return 'the samples of both models showed no region where the advisory changed';
-  return `the changed samples are spread in bands too thin for a readable box (none explains ${pct(CHANGE_MIN_SHARE_DEFAULT, 2)} of the domain)`;
+  return `the changed samples lie in bands too thin for a readable box: none explains ${pct(CHANGE_MIN_SHARE_DEFAULT, 2)} of the domain`;
 }
