@@ -6,6 +6,16 @@ export interface TaskMessage<T> {
   readonly task: T;
 }
 
+/**
+ * Main thread to worker: finish the task in hand, then end the thread by closing its port. A
+ * worker is never terminated while onnxruntime works for it: a native call that completes into
+ * a terminated thread aborts the whole process (seen as "terminate called after throwing an
+ * instance of 'Napi::Error'").
+ */
+export interface StopMessage {
+  readonly kind: 'stop';
+}
+
 /** A failure carried across threads: the error's class name, stable code and message. */
 export interface ErrorData {
   readonly name: string;

@@ -1,6 +1,6 @@
 import type { Worker } from 'node:worker_threads';
 import { reviveError } from './error-data.js';
-import type { ReplyMessage, TaskMessage } from './pool-protocol.js';
+import type { ReplyMessage, StopMessage, TaskMessage } from './pool-protocol.js';
 import { startWorker } from './start-worker.js';
 
 export interface WorkerPoolOptions {
@@ -29,7 +29,7 @@ export interface WorkerPool<T, R> {
   ready(): Promise<void>;
   /** Runs one task on the next free worker; rejects with the task's (revived) error. */
   run(task: T): Promise<R>;
-  /** Stops every worker; tasks still waiting are rejected. */
+  /** Stops every worker once idle (see STOP_GRACE_MS); tasks still waiting are rejected. */
   close(): Promise<void>;
 }
 
@@ -42,6 +42,32 @@ interface Slot {
   readonly worker: Worker;
   ready: boolean;
   inFlight: number;
+  /** Resolves when the thread has ended (by itself after a stop, or terminated). */
+  readonly ended: Promise<void>;
+}
+
+/**
+ * How long a stopped worker may take to finish its task in hand and end by itself before it is
+ * terminated. Terminating a thread while onnxruntime works for it can abort the process, so
+ * this is long; it only matters on error paths (a normal close finds every worker idle).
+ */
+export const STOP_GRACE_MS = 30_000;
+
+/** Asks a worker to end once idle; terminates it only if it has not ended after STOP_GRACE_MS. */
+function stopWorker(slot: Slot): Promise<void> {
+  try {
+    slot.worker.postMessage({ kind: 'stop' } satisfies StopMessage);
+  } catch {
+    // the thread has ended already: nothing to stop
+  }
+  let timer: NodeJS.Timeout | undefined;
+  const late = new Promise<void>((resolve) => {
+    timer = setTimeout(() => {
+      void slot.worker.terminate().then(() => resolve());
+    }, STOP_GRACE_MS);
+    timer.unref();
+  });
+  return Promise.race([slot.ended, late]).finally(() => clearTimeout(timer));
 }
 
 /**
@@ -68,7 +94,7 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
     for (const p of pending.values()) p.reject(error);
     pending.clear();
     for (const w of waiting.splice(0)) w.reject(error);
-    for (const s of slots) void s.worker.terminate();
+    for (const s of slots) void stopWorker(s);
   };
 
   const dispatch = (): void => {
@@ -83,7 +109,8 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
   };
 
   const slots: Slot[] = Array.from({ length: options.size }, () => {
-    const slot: Slot = { worker: startWorker(options.base, options.name, options.workerData), ready: false, inFlight: 0 };
+    const worker = startWorker(options.base, options.name, options.workerData);
+    const slot: Slot = { worker, ready: false, inFlight: 0, ended: new Promise<void>((resolve) => worker.once('exit', () => resolve())) };
     slot.worker.on('message', (m: ReplyMessage<R>) => {
       if (m.kind === 'ready') {
         slot.ready = true;
@@ -133,7 +160,7 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
       pending.clear();
       for (const w of waiting.splice(0)) w.reject(stopped);
       queue.length = 0;
-      await Promise.all(slots.map((s) => s.worker.terminate()));
+      await Promise.all(slots.map((s) => stopWorker(s)));
     },
   };
 }

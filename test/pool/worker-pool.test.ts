@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { ModelError, ToolError } from '../../src/errors.js';
-import { workerPool, errorData, reviveError } from '../../src/pool/index.js';
+import { workerPool, errorData, reviveError, startWorker } from '../../src/pool/index.js';
 
 /** The pool against its fixture worker (test/pool/fixture-worker.ts): plain arithmetic as the reference. */
 function pool(size: number, depth = 1, failStart = false) {
@@ -68,5 +68,21 @@ describe('errorData and reviveError', () => {
     const plain = reviveError(errorData(new RangeError('bad')));
     expect(plain).not.toBeInstanceOf(ToolError);
     expect(plain.message).toBe('bad');
+  });
+});
+
+describe('serveTasks and a stop message', () => {
+  // A stopped worker must end by itself (exit code 0), never by terminate (exit code 1): a
+  // thread terminated while onnxruntime works for it can abort the whole process.
+  it('ends the thread by itself after the tasks before the stop, also when the stop comes during start-up', async () => {
+    const worker = startWorker(import.meta.url, './fixture-worker', { failStart: false });
+    const replies: unknown[] = [];
+    worker.on('message', (m) => replies.push(m));
+    // sent at once, before the worker has started: they wait in the port until it listens
+    worker.postMessage({ id: 0, task: { value: 3, turns: 2 } });
+    worker.postMessage({ kind: 'stop' });
+    const code = await new Promise<number>((resolve) => worker.once('exit', resolve));
+    expect(code).toBe(0);
+    expect(replies).toContainEqual(expect.objectContaining({ kind: 'done', id: 0, result: expect.objectContaining({ square: 9 }) }));
   });
 });
