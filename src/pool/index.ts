@@ -3,7 +3,7 @@
  * worker-side task loop, and the bootstrap that runs .ts workers under tsx and .js workers
  * from dist/.
  */
-export { workerPool, type WorkerPool, type WorkerPoolOptions } from './worker-pool.js';
+export { haltAllPools, workerPool, type WorkerPool, type WorkerPoolOptions } from './worker-pool.js';
 export { serveTasks } from './serve-tasks.js';
 export { startWorker } from './start-worker.js';
 export { errorData, reviveError } from './error-data.js';

@@ -53,6 +53,18 @@ interface Slot {
  */
 export const STOP_GRACE_MS = 30_000;
 
+/** Every pool not yet closed, so that an interrupt can halt them all (haltAllPools). */
+const livePools = new Set<{ halt(): Promise<void> }>();
+
+/**
+ * For an interrupt: every live pool hands out no more tasks and asks its workers to end once
+ * idle; resolves when they have all ended. Waiting tasks are left unresolved (the process is
+ * about to exit). The caller bounds the wait: a worker may be in the middle of a long task.
+ */
+export async function haltAllPools(): Promise<void> {
+  await Promise.all([...livePools].map((p) => p.halt()));
+}
+
 /** Asks a worker to end once idle; terminates it only if it has not ended after STOP_GRACE_MS. */
 function stopWorker(slot: Slot): Promise<void> {
   try {
@@ -84,6 +96,7 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
   let nextId = 0;
   let failure: Error | undefined;
   let closing = false;
+  let halted = false;
   let started = 0;
   const waiting: Array<Pending<void>> = [];
 
@@ -98,7 +111,7 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
   };
 
   const dispatch = (): void => {
-    while (queue.length > 0) {
+    while (queue.length > 0 && !halted) {
       let best: Slot | undefined;
       for (const s of slots) if (s.ready && s.inFlight < depth && (!best || s.inFlight < best.inFlight)) best = s;
       if (!best) return;
@@ -132,6 +145,13 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
     return slot;
   });
 
+  const halt = (): Promise<void> => {
+    halted = true;
+    return Promise.all(slots.map((s) => stopWorker(s))).then(() => undefined);
+  };
+  const live = { halt };
+  livePools.add(live);
+
   return {
     size: options.size,
     get started() {
@@ -155,6 +175,7 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
     async close(): Promise<void> {
       if (closing) return;
       closing = true;
+      livePools.delete(live);
       const stopped = new Error(`worker pool ${options.name} was closed`);
       for (const p of pending.values()) p.reject(stopped);
       pending.clear();
