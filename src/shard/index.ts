@@ -26,3 +26,4 @@ export { writePartial } from './write-partial.js';
 export { makeDiffPartial } from './make-diff-partial.js';
 export { mergeDiffParts } from './merge-diff-parts.js';
 export { fileSha256 } from './file-sha256.js';
+export { partialRun, type RunOfShard } from './partial-run.js';

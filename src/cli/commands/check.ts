@@ -18,7 +18,7 @@ import { createProgress } from '../progress.js';
 import { EXIT } from '../exit-codes.js';
 import { MINE_DEFAULTS } from './mine.js';
 import { SHARD_OPTION, shardDone } from './merge.js';
-import { itemsSha256, makePartial, selectShard, shardIndices, shardSpec, writePartial, type ShardSpec } from '../../shard/index.js';
+import { makePartial, partialRun, selectShard, shardIndices, shardSpec, writePartial, type ShardSpec } from '../../shard/index.js';
 import { TIME_BUDGET_OPTION, timeBudgetOf, warnIfLong } from '../time-budget.js';
 
 export function checkBuilder<T>(y: Argv<T>) {
@@ -80,22 +80,16 @@ async function checkShard(
   // with repair, sub-rules of an earlier repair are dropped and re-derived (as checkTable does)
   const items = selectShard(source.rules, shard, (r) => !(repair && r.origin.kind === 'repaired'));
   const table = await checkTable(scenario, model, items.map((i) => i.rule), settings, { command: 'check', source: source.path, notes: source.warnings }, progress);
-  const { tool, version } = toolVersion();
-  const { jobs: _jobs, seed, ...recorded } = settings;
-  const part = makePartial(table, {
-    command: 'check',
-    tool,
-    toolVersion: version,
+  const run = partialRun('check', {
     scenarioSha256: scenario.scenarioSha256,
     models: { model: model.sha256 },
     inputSha256: sha256Of(source.path),
-    seed,
-    settings: recorded,
+    settings,
     shards: shard.n,
-    items: source.rules.length,
-    itemsSha256: itemsSha256(source.rules.map((r) => r.id)),
+    ids: source.rules.map((r) => r.id),
     report: where.report,
-  }, shard.k, items);
+  });
+  const part = makePartial(table, run, shard.k, items);
   return { path: writePartial(where.out, part), part };
 }
 

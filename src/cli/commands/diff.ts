@@ -12,7 +12,7 @@ import { createProgress } from '../progress.js';
 import { EXIT } from '../exit-codes.js';
 import { MINE_DEFAULTS } from './mine.js';
 import { SHARD_OPTION, shardDone } from './merge.js';
-import { CHANGE_ITEM, fileSha256, itemsSha256, makeDiffPartial, shardIndices, shardSpec, writePartial, type ShardSpec } from '../../shard/index.js';
+import { CHANGE_ITEM, fileSha256, makeDiffPartial, partialRun, shardIndices, shardSpec, writePartial, type ShardSpec } from '../../shard/index.js';
 
 export const DIFF_DEFAULTS = {
   changeSamples: 100_000,
@@ -85,21 +85,16 @@ async function diffShard(
   const indices = shardIndices(count + 1, shard);
   const rules = indices.filter((i) => i < count).map((i) => source.rules[i]!);
   const share = await diffPart(scenario, before, after, source, settings, { rules, change: indices.includes(count) }, progress);
-  const { seed: _seed, ...recorded } = share.manifest.settings;
-  const part = makeDiffPartial(share, {
-    command: 'diff',
-    tool: share.manifest.tool,
-    toolVersion: share.manifest.toolVersion,
+  const run = partialRun('diff', {
     scenarioSha256: scenario.scenarioSha256,
     models: { before: before.sha256, after: after.sha256 },
     inputSha256: fileSha256(source.path),
-    seed: settings.seed,
-    settings: { ...recorded, failOn: where.failOn },
+    settings: { ...share.manifest.settings, seed: settings.seed, failOn: where.failOn },
     shards: shard.n,
-    items: count + 1,
-    itemsSha256: itemsSha256(ids),
+    ids,
     report: false,
-  }, shard.k, indices, ids);
+  });
+  const part = makeDiffPartial(share, run, shard.k, indices, ids);
   return { path: writePartial(where.out, part), part };
 }
 

@@ -14,8 +14,7 @@ import { createProgress } from '../progress.js';
 import { EXIT } from '../exit-codes.js';
 import { MINE_DEFAULTS } from './mine.js';
 import { SHARD_OPTION, shardDone } from './merge.js';
-import { itemsSha256, makePartial, selectShard, shardSpec, writePartial } from '../../shard/index.js';
-import { toolVersion } from '../../version.js';
+import { makePartial, partialRun, selectShard, shardSpec, writePartial } from '../../shard/index.js';
 import { TIME_BUDGET_OPTION, timeBudgetOf, warnIfLong } from '../time-budget.js';
 import { createHash } from 'node:crypto';
 
@@ -89,22 +88,16 @@ export async function runProve(args: ProveArgs, io: CliIo): Promise<number> {
     const settled = await settleTable(table, scenario, model, settings, progress);
     if (shard) {
       progress.stop();
-      const { tool, version } = toolVersion();
-      const { jobs: _jobs, seed, ...recorded } = settings;
-      const part = makePartial(settled, {
-        command: 'prove',
-        tool,
-        toolVersion: version,
+      const run = partialRun('prove', {
         scenarioSha256: scenario.scenarioSha256,
         models: { model: model.sha256 },
         inputSha256: createHash('sha256').update(text).digest('hex'),
-        seed,
-        settings: recorded,
+        settings,
         shards: shard.n,
-        items: whole.rules.length,
-        itemsSha256: itemsSha256(whole.rules.map((r) => r.rule.id)),
+        ids: whole.rules.map((r) => r.rule.id),
         report: existsSync(join(runDir, 'report.html')),
-      }, shard.k, items);
+      });
+      const part = makePartial(settled, run, shard.k, items);
       return shardDone(io, args, writePartial(resolve(io.cwd, String(args.out)), part), part);
     }
     const extra = existsSync(join(runDir, 'report.html'))
