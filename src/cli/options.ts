@@ -1,4 +1,3 @@
-import { TIME_BUDGET_OPTION } from './time-budget.js';
 import { availableParallelism } from 'node:os';
 import type { Argv } from 'yargs';
 
@@ -19,10 +18,3 @@ export function samplingOptions<T>(y: Argv<T>) {
     .option('threads', { type: 'number', default: 1, describe: 'onnxruntime intra-op threads' });
 }
 
-/**
- * The time budget of a job (scaling warning): when the estimate of src/scale passes it, a
- * warning goes to stderr before work starts; the job still runs. Not hidden by --quiet.
- */
-export function timeBudgetOption<T>(y: Argv<T>) {
-  return y.option('time-budget', TIME_BUDGET_OPTION);
-}

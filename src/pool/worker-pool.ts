@@ -181,7 +181,7 @@ export function workerPool<T, R>(options: WorkerPoolOptions): WorkerPool<T, R> {
       pending.clear();
       for (const w of waiting.splice(0)) w.reject(stopped);
       queue.length = 0;
-      await Promise.all(slots.map((s) => stopWorker(s)));
+      await halt();
     },
   };
 }

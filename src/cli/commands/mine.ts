@@ -8,8 +8,8 @@ import { buildReportHtml } from '../../report/html/index.js';
 import { UsageError } from '../../errors.js';
 import { positiveInt, positiveNumber, shareBelowOne, timestamp } from '../option-checks.js';
 import type { CliIo } from '../io.js';
-import { commonOptions, samplingOptions, timeBudgetOption } from '../options.js';
-import { timeBudgetOf, warnIfLong } from '../time-budget.js';
+import { commonOptions, samplingOptions } from '../options.js';
+import { TIME_BUDGET_OPTION, timeBudgetOf, warnIfLong } from '../time-budget.js';
 import { createProgress } from '../progress.js';
 import { EXIT } from '../exit-codes.js';
 
@@ -28,7 +28,8 @@ export const MINE_DEFAULTS = {
 } as const;
 
 export function mineBuilder<T>(y: Argv<T>) {
-  return timeBudgetOption(commonOptions(samplingOptions(y)))
+  return commonOptions(samplingOptions(y))
+    .option('time-budget', TIME_BUDGET_OPTION)
     .positional('scenario', { type: 'string', describe: 'scenario.json', demandOption: true })
     .option('out', { type: 'string', describe: 'run folder (default runs/<scenario>-<timestamp>)' })
     .option('model', { type: 'string', describe: 'model file instead of the one the scenario names' })
