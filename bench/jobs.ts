@@ -7,8 +7,7 @@ import { existsSync } from 'node:fs';
 import { availableParallelism, cpus, loadavg } from 'node:os';
 import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import type { MineSettings } from '../src/pipeline/mine.js';
-import { MINE_DEFAULTS } from '../src/cli/commands/mine.js';
+import { benchMineSettings } from './_mine-defaults.js';
 
 /**
  * The built CLI's modules (dist/, `npm run build` first) when present, as `specula` runs them:
@@ -98,22 +97,8 @@ export async function run(): Promise<string> {
   const loadAvg = [loadavg()[0]!];
   const scenario = loadScenario(SCENARIO);
   const model = await loadModel(scenario, { threads: 1 });
-  const settings: MineSettings = {
-    seed: 1,
-    budget: MINE_DEFAULTS.samples,
-    boundaryShare: MINE_DEFAULTS.boundaryShare,
-    maxRules: MINE_DEFAULTS.maxRules,
-    minLeaf: MINE_DEFAULTS.minLeaf,
-    roundTolerance: MINE_DEFAULTS.roundTolerance,
-    checkSamples: MINE_DEFAULTS.checkSamples,
-    fidelitySamples: MINE_DEFAULTS.fidelitySamples,
-    confidence: 0.95,
-    prove: false,
-    proveBoxes: MINE_DEFAULTS.proveBoxes,
-    proveSeconds: MINE_DEFAULTS.proveSeconds,
-    jobs: 2,
-    repair: false,
-  };
+  const settings = benchMineSettings(2);
+
   const mined = await mine(scenario, model, settings);
   const byVolume = [...mined.rules].sort((a, b) => b.evidence.volumeFraction - a.evidence.volumeFraction);
   const table = { ...mined, rules: byVolume.slice(PROVE_RANKS.from, PROVE_RANKS.from + PROVE_RANKS.count) };

@@ -14,6 +14,7 @@ import { mine } from '../src/pipeline/mine.js';
 import { readNetworkOf } from '../src/pipeline/read-network.js';
 import { REPAIR_PIECES_FLOOR, REPAIR_PIECES_PER_DOMAIN, settleRule } from '../src/pipeline/settle-rule.js';
 import { MINE_DEFAULTS } from '../src/cli/commands/mine.js';
+import { benchMineSettings } from './_mine-defaults.js';
 import { provenCoverage } from '../src/repair/index.js';
 import type { CheckedRule } from '../src/types.js';
 
@@ -28,22 +29,8 @@ export async function run(): Promise<string> {
   const model = await loadModel(scenario);
   const read = readNetworkOf(model);
   if (!read.supported) throw new Error('survey-boat network not supported by the prover');
-  const table = await mine(scenario, model, {
-    seed: 1,
-    budget: MINE_DEFAULTS.samples,
-    boundaryShare: MINE_DEFAULTS.boundaryShare,
-    maxRules: MINE_DEFAULTS.maxRules,
-    minLeaf: MINE_DEFAULTS.minLeaf,
-    roundTolerance: MINE_DEFAULTS.roundTolerance,
-    checkSamples: MINE_DEFAULTS.checkSamples,
-    fidelitySamples: MINE_DEFAULTS.fidelitySamples,
-    confidence: 0.95,
-    prove: false,
-    proveBoxes: MINE_DEFAULTS.proveBoxes,
-    proveSeconds: MINE_DEFAULTS.proveSeconds,
-    jobs: 1,
-    repair: false,
-  });
+  const table = await mine(scenario, model, benchMineSettings(1));
+
   const cpu0 = cpuMs();
   const wall0 = performance.now();
   const settled: CheckedRule[] = [];
