@@ -2,8 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { copyFileSync, existsSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { main } from '../../src/cli/main.js';
-import { capture } from './helpers/capture.js';
+import { runCli } from './helpers/capture.js';
 import { withoutTiming } from './helpers/without-timing.js';
 
 const DEMO = resolve('scenarios/survey-boat');
@@ -20,11 +19,7 @@ const RULES = readFileSync(join(DEMO, 'expectations.rules'), 'utf8') + [
 ].join('\n');
 
 let dir = '';
-const run = async (args: string[]): Promise<{ code: number; out: string; err: string }> => {
-  const io = capture(dir);
-  const code = await main(args, io);
-  return { code, out: io.out(), err: io.err() };
-};
+const run = (args: string[]) => runCli(dir, args);
 const check = (...more: string[]) => run(['check', join(DEMO, 'scenario.json'), 'expect.rules', ...SMALL, ...more]);
 const json = (p: string) => JSON.parse(readFileSync(join(dir, p), 'utf8'));
 

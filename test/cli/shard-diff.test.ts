@@ -2,8 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, readdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { main } from '../../src/cli/main.js';
-import { capture } from './helpers/capture.js';
+import { runCli } from './helpers/capture.js';
 
 const DEMO = resolve('scenarios/survey-boat');
 /** Small budgets keep the file quick; the demo's two models still differ on about 5 % of the domain. */
@@ -14,11 +13,7 @@ const DIFF = [
 ];
 
 let dir = '';
-const run = async (args: string[]): Promise<{ code: number; out: string; err: string }> => {
-  const io = capture(dir);
-  const code = await main(args, io);
-  return { code, out: io.out(), err: io.err() };
-};
+const run = (args: string[]) => runCli(dir, args);
 const json = (p: string) => JSON.parse(readFileSync(join(dir, p), 'utf8'));
 
 /** diff.json without the run's date and the proofs' seconds (the only fields that may differ). */

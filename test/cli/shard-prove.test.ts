@@ -2,8 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { cpSync, existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { main } from '../../src/cli/main.js';
-import { capture } from './helpers/capture.js';
+import { runCli } from './helpers/capture.js';
 import { withoutTiming } from './helpers/without-timing.js';
 
 const DEMO = resolve('scenarios/survey-boat');
@@ -21,11 +20,7 @@ const RULES = [
 const PROVE = ['--prove-boxes', '1000', '--jobs', '1', '--quiet'];
 
 let dir = '';
-const run = async (args: string[]): Promise<{ code: number; out: string; err: string }> => {
-  const io = capture(dir);
-  const code = await main(args, io);
-  return { code, out: io.out(), err: io.err() };
-};
+const run = (args: string[]) => runCli(dir, args);
 const json = (p: string) => JSON.parse(readFileSync(join(dir, p), 'utf8'));
 
 describe('specula prove --shard and merge', () => {
