@@ -1,6 +1,5 @@
 import type { Model, Rule, RuleTable, Scenario } from '../types.js';
-import { modelJobs } from '../pipeline/model-jobs.js';
-import { WORKER_MIN_EVALUATIONS } from '../pipeline/mine.js';
+import { modelJobs, threadsForWork } from '../pipeline/model-jobs.js';
 import { settleTable } from '../pipeline/settle-table.js';
 import type { MineHooks } from '../pipeline/mine-hooks.js';
 import { toolVersion } from '../version.js';
@@ -55,10 +54,9 @@ export async function checkTable(
   const relabelled = new Map(rules.filter((r) => r.origin.kind === 'repaired').map((r) => [r.id, r.origin]));
   const given = repair ? rules.filter((r) => !relabelled.has(r.id)) : rules.map((r) => (relabelled.has(r.id) ? { ...r, origin: { kind: 'mined' as const } } : r));
   hooks.onStage?.('checking');
-  // dense checks on model worker threads when the work outweighs their start-up (as mine
-  // decides); one rule per task with its own seed, so the evidence is the same for any jobs
-  const work = given.length * settings.checkSamples;
-  const threads = modelJobs(scenario, model, work >= WORKER_MIN_EVALUATIONS ? (settings.jobs ?? 1) : 1);
+  // dense checks on model worker threads when the work outweighs their start-up (as in mine);
+  // one rule per task with its own seed, so the evidence is the same for any jobs
+  const threads = modelJobs(scenario, model, threadsForWork(given.length * settings.checkSamples, settings.jobs ?? 1));
   let checked;
   try {
     checked = await threads.checkRules(given, {

@@ -7,7 +7,7 @@ import { settleTable } from './settle-table.js';
 import { recountTree } from './recount-tree.js';
 import { relabelRules } from './relabel-rules.js';
 import type { MineHooks } from './mine-hooks.js';
-import { modelJobs, type ModelJobs } from './model-jobs.js';
+import { modelJobs, threadsForWork, type ModelJobs } from './model-jobs.js';
 
 export type { MineHooks } from './mine-hooks.js';
 
@@ -42,17 +42,6 @@ export interface MineSettings {
   readonly workerMinEvaluations?: number;
 }
 
-/**
- * Network evaluations of a run (samples, dense checks of up to maxRules rules, fidelity) below
- * which mine keeps sampling, checks and fidelity in this thread whatever `jobs` says (proofs
- * still use it). A model worker takes 0.3–1.5 s to start (onnxruntime and the model loaded;
- * docs/performance.md, "Worker threads"), while 2,000,000 evaluations of the demo network take
- * about a second on one thread: below that, two threads save less than their start-up costs
- * (the demo — 200,000 samples, 56 rules, ~1.4 M evaluations — took 4.5–5.0 s end to end with
- * --jobs 1 and 5.0–6.3 s with model and proof workers on this loaded 2-core machine). The
- * results are the same either way.
- */
-export const WORKER_MIN_EVALUATIONS = 2_000_000;
 
 
 /** Rules of a tree after merging same-advisory neighbours. */
@@ -99,7 +88,7 @@ export function pickPrunedTree(tree: Tree, scenario: Scenario, maxRules: number)
  */
 export async function mine(scenario: Scenario, model: Model, settings: MineSettings, hooks: MineHooks = {}): Promise<RuleTable> {
   const work = settings.budget + settings.maxRules * settings.checkSamples + settings.fidelitySamples;
-  const jobs = modelJobs(scenario, model, work >= (settings.workerMinEvaluations ?? WORKER_MIN_EVALUATIONS) ? settings.jobs : 1);
+  const jobs = modelJobs(scenario, model, threadsForWork(work, settings.jobs, settings.workerMinEvaluations));
   let table: RuleTable;
   try {
     table = await mineTable(scenario, model, settings, hooks, jobs);

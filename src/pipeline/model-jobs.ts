@@ -12,6 +12,26 @@ import { sharedSampleArrays } from './shared-sample-arrays.js';
  */
 export const LABEL_DEPTH = 2;
 
+/**
+ * Network evaluations of a run (samples, dense checks of up to maxRules rules, fidelity) below
+ * which a run (mine; check and diff for their dense checks) keeps the model's work in this
+ * thread whatever `jobs` says (proofs still use it). A model worker takes 0.3–1.5 s to start (onnxruntime and the model loaded;
+ * docs/performance.md, "Worker threads"), while 2,000,000 evaluations of the demo network take
+ * about a second on one thread: below that, two threads save less than their start-up costs
+ * (the demo — 200,000 samples, 56 rules, ~1.4 M evaluations — took 4.5–5.0 s end to end with
+ * --jobs 1 and 5.0–6.3 s with model and proof workers on this loaded 2-core machine). The
+ * results are the same either way.
+ */
+export const WORKER_MIN_EVALUATIONS = 2_000_000;
+
+/**
+ * Threads for the model's work of a run of `evaluations` network evaluations: `jobs` from
+ * `minEvaluations` (default WORKER_MIN_EVALUATIONS) on, else 1. Never changes a result.
+ */
+export function threadsForWork(evaluations: number, jobs: number, minEvaluations = WORKER_MIN_EVALUATIONS): number {
+  return evaluations >= minEvaluations ? jobs : 1;
+}
+
 /** The model's work of a run — labelling samples, dense checks, fidelity — on `jobs` threads. */
 export interface ModelJobs {
   readonly jobs: number;

@@ -8,7 +8,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { main } from '../../src/cli/main.js';
-import { WORKER_MIN_EVALUATIONS } from '../../src/pipeline/mine.js';
+import { WORKER_MIN_EVALUATIONS } from '../../src/pipeline/model-jobs.js';
 import { capture } from './helpers/capture.js';
 import { withoutTiming } from './helpers/without-timing.js';
 
