@@ -37,8 +37,15 @@ export const REPAIR_STEPS_FLOOR = 80;
  * floor of 16 and 100 per domain gave 273 sub-rules and 86.66 %, this 231 and 86.31 %, in a
  * sixth less time).
  */
-export const REPAIR_SUB_RULES_PER_DOMAIN = 400;
-export const REPAIR_SUB_RULES_FLOOR = 4;
+export const REPAIR_SUB_RULES_PER_DOMAIN = 1_200;
+export const REPAIR_SUB_RULES_FLOOR = 12;
+/**
+ * Pieces the fill's mapping proofs may bound (`fillPieces` of repairRule): v · this, within the
+ * rule's piece budget. The fill cuts readable boxes from the pieces proven after peeling
+ * (src/repair/fill-from-pieces.ts); mapping the unproven rest first lets it reach closer to the
+ * boundaries of large rules (docs/repair.md).
+ */
+export const REPAIR_FILL_PIECES_PER_DOMAIN = 200_000;
 /**
  * Regions dropped by a repair: under 1 % of the rule's box, or under 0.05 % of the domain when
  * that is smaller (a slab of a large rule is worth repairing even if a small share of it).
@@ -47,13 +54,14 @@ export const REPAIR_MIN_RULE_SHARE = 0.01;
 export const REPAIR_MIN_DOMAIN_SHARE = 0.0005;
 
 /** Repair options of a rule covering the share `volume` of the domain (see the constants above). */
-export function repairBudgetOf(volume: number): { maxPieces: number; maxSteps: number; maxSubRules: number; minVolumeShare: number } {
+export function repairBudgetOf(volume: number): { maxPieces: number; maxSteps: number; maxSubRules: number; minVolumeShare: number; fillPieces: number } {
   const v = Math.max(0, Math.min(1, volume));
   return {
     maxPieces: Math.round(REPAIR_PIECES_FLOOR + v * REPAIR_PIECES_PER_DOMAIN),
     maxSteps: Math.round(REPAIR_STEPS_FLOOR + v * REPAIR_STEPS_PER_DOMAIN),
     maxSubRules: Math.max(REPAIR_SUB_RULES_FLOOR, Math.ceil(v * REPAIR_SUB_RULES_PER_DOMAIN)),
     minVolumeShare: v > 0 ? Math.min(REPAIR_MIN_RULE_SHARE, REPAIR_MIN_DOMAIN_SHARE / v) : REPAIR_MIN_RULE_SHARE,
+    fillPieces: Math.round(v * REPAIR_FILL_PIECES_PER_DOMAIN),
   };
 }
 

@@ -34,6 +34,12 @@ export interface ProveOptions {
    * The caller vouches for them: pass only `provenBoxes` of such calls (src/repair does).
    */
   readonly known?: readonly Box[];
+  /**
+   * Go on past a confirmed counterexample (default false: stop at the first): every unproven
+   * piece is split as before, so within the budget `provenBoxes` maps where the rule holds. The
+   * status is then `refuted` (with the first counterexample) when any was found.
+   */
+  readonly keepGoing?: boolean;
 }
 
 export interface ProveResult {
@@ -103,6 +109,7 @@ export async function proveBox(net: Network, box: Box, allowed: readonly number[
   let slack = 0;
   let unresolved = 0;
   let reused = 0;
+  let firstCex: ProofCounterexample | undefined;
   const accept = (p: Piece): void => {
     proven += fraction(p);
     provenBoxes.push(Array.from(p.lo, (v, i) => [v, p.hi[i]!] as const));
@@ -182,7 +189,10 @@ export async function proveBox(net: Network, box: Box, allowed: readonly number[
       open.push({ piece: p, dim: splitDimension(lin, r, p, rootWidth, blo, bhi) });
     }
     const cex = await confirmCandidates(net, Float64Array.from(candidates), candidates.length / d, allowedSet, decision, options.normalize, options.confirm, screen);
-    if (cex) return result('refuted', cex);
+    if (cex && options.keepGoing !== true) return result('refuted', cex);
+    // (keepGoing) a piece with a confirmed candidate is split like any other: its parts away
+    // from the violation may still be proven
+    firstCex ??= cex;
     for (const { piece, dim } of open) {
       if (dim < 0) {
         unresolved++;
@@ -196,5 +206,6 @@ export async function proveBox(net: Network, box: Box, allowed: readonly number[
       queue.push(left, right);
     }
   }
+  if (firstCex !== undefined) return result('refuted', firstCex);
   return result(head === queue.length && unresolved === 0 ? 'proven' : 'unknown');
 }

@@ -6,6 +6,8 @@ export { repairRule, REPAIR_DEFAULTS } from './repair-rule.js';
 export type { RepairOptions, RepairResult, RepairSamples, RepairScenario } from './repair-rule.js';
 export type { RepairEvent } from './repair-context.js';
 export { readableCut, readableMiddle, type ReadableCutLimits, type Side } from './readable-cut.js';
+export { readableAbove, readableBelow } from './readable-near.js';
+export { FILL_SHARE_DIVISOR, MAP_PIECES_PER_CELL } from './fill-from-pieces.js';
 export { unionVolume } from './union-volume.js';
 export { uncoveredBoxes } from './uncovered-boxes.js';
 export { coverCells, type CellVisitor } from '../prove/index.js';

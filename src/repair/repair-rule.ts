@@ -5,6 +5,7 @@ import { READABLE_STEP_MIN_FRACTION, readableSteps, sortRules } from '../rules/i
 import { createRng } from '../sampling/index.js';
 import { boxShare } from './box-share.js';
 import { PointKind, appendPointsInPlace, emptyGuidePoints, pointInBox } from './guide-points.js';
+import { FILL_SHARE_DIVISOR, fillFromPieces } from './fill-from-pieces.js';
 import { mergeProven } from './merge-proven.js';
 import { peelAndProve } from './peel-and-prove.js';
 import type { RepairContext, RepairEvent } from './repair-context.js';
@@ -21,6 +22,7 @@ export const REPAIR_DEFAULTS = {
   /** Greatest gap, as a share of the rule box's width: the room a rounder cut value may take. */
   allowanceShare: 0.03,
   seed: 1,
+  fillPieces: 0,
 } as const;
 
 /** Labelled samples (e.g. the checker's) that show where a rule's box is violated. */
@@ -72,6 +74,12 @@ export interface RepairOptions {
    * `maxPieces` it bounds the repair's work without a clock (default: no limit).
    */
   readonly maxSteps?: number;
+  /**
+   * Pieces the proofs that map the uncovered rest of the box may bound after peeling
+   * (`fillFromPieces`; default REPAIR_DEFAULTS.fillPieces, within `maxPieces`). With 0 the fill
+   * only cuts boxes from the pieces the peeling's proofs proved.
+   */
+  readonly fillPieces?: number;
   /** Seed of the screening points (runs are reproducible given the same proof outcomes). */
   readonly seed?: number;
   /** Called at each step (plan, search, proof, drop); must not throw. */
@@ -154,7 +162,10 @@ export async function repairRule(net: Network, rule: Rule, scenario: RepairScena
     maxSubRules: options.maxSubRules ?? REPAIR_DEFAULTS.maxSubRules,
     minVolumeShare: options.minVolumeShare ?? REPAIR_DEFAULTS.minVolumeShare,
   };
-  const parts = (await mergeProven(ctx, await peelAndProve(ctx, peel))).map((p) => ({ ...p, allowed: rule.allowed }));
+  const merged = await mergeProven(ctx, await peelAndProve(ctx, peel));
+  const fillPieces = options.fillPieces ?? REPAIR_DEFAULTS.fillPieces;
+  const filled = await fillFromPieces(ctx, merged, { maxSubRules: peel.maxSubRules, minVolumeShare: peel.minVolumeShare / FILL_SHARE_DIVISOR, mapPieces: fillPieces });
+  const parts = filled.map((p) => ({ ...p, allowed: rule.allowed }));
   const origin = { kind: 'repaired', from: rule.id } as const;
   const partOf = new Map(parts.map((p) => [p.box, p]));
   const ordered = sortRules(parts.map((p) => ({ id: '', box: p.box, allowed: p.allowed, origin })));

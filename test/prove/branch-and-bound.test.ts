@@ -217,31 +217,72 @@ describe('proveBox', () => {
   it('with known pieces of earlier proofs, never proves a piece that dense runtime sampling refutes (random networks, seeded)', async () => {
     await fc.assert(
       fc.asyncProperty(fc.integer({ min: 1, max: 2 ** 31 - 1 }), fc.integer({ min: 1, max: 3 }), async (seed, d) => {
-        const rng = mulberry32(seed);
-        const bytes = writeMlpOnnx(randomMlp(rng, [d, 8, 8, 3], 1.5));
-        const net = read(bytes);
-        const lo = Array.from({ length: d }, () => Math.fround(-1 + rng()));
-        const hi = lo.map((v) => Math.fround(v + 0.05 + 2 * rng()));
-        const ort = await ortAdvisor(bytes, d, 'argmax');
-        const centre = (await ort.confirm(Float64Array.from(lo, (v, i) => (v + hi[i]!) / 2), 1))[0]!;
-        const opts = { maxSeconds: 600, now: clock(), confirm: ort.confirm };
-        const first = await proveBox(net, lo.map((v, i) => [v, hi[i]!] as const), [centre], 'argmax', { ...opts, maxBoxes: 100 });
+        const c = await randomCase(seed, d);
+        const first = await proveBox(c.net, c.box, [c.centre], 'argmax', { ...c.opts, maxBoxes: 100 });
         // a second box overlapping the first one, shifted by up to a third of its width
-        const box = lo.map((v, i) => {
-          const s = (rng() - 0.5) * (2 / 3) * (hi[i]! - v);
-          return [v + s, hi[i]! + s] as const;
+        const box = c.box.map(([lo, hi]) => {
+          const s = (c.rng() - 0.5) * (2 / 3) * (hi - lo);
+          return [lo + s, hi + s] as const;
         });
-        const res = await proveBox(net, box, [centre], 'argmax', { ...opts, maxBoxes: 100, known: first.provenBoxes });
-        for (const b of res.provenBoxes) {
-          b.forEach(([a, z], i) => expect(a >= box[i]![0] && z <= box[i]![1]).toBe(true));
-          const pts = samplePoints(rng, b.map((r) => r[0]), b.map((r) => r[1]), 200);
-          const adv = await ort.confirm(pts, 200);
-          expect(adv.every((a) => a === centre)).toBe(true);
-        }
-        if (res.status === 'refuted') expect(Array.from(await ort.confirm(Float64Array.from(res.counterexample!.x), 1))[0]).not.toBe(centre);
-        await ort.release();
+        await expectSound(c, box, await proveBox(c.net, box, [c.centre], 'argmax', { ...c.opts, maxBoxes: 100, known: first.provenBoxes }));
       }),
       { seed: 20261202, numRuns: 30 },
     );
   });
+
+  it('with keepGoing maps past counterexamples: proves the parts of the box where the rule holds', async () => {
+    const ort = await ortAdvisor(tentBytes, 1, 'argmax');
+    const opts = { maxSeconds: 60, now: clock(), confirm: ort.confirm, maxBoxes: 400 };
+    // advisory 0 holds exactly where |x| > 0.5 (closed form of the tent network): on [−2, 2]
+    // the rule holds on 3/4 of the box
+    const stop = await proveBox(tent, [[-2, 2]], [0], 'argmax', opts);
+    const map = await proveBox(tent, [[-2, 2]], [0], 'argmax', { ...opts, keepGoing: true });
+    expect([stop.status, map.status]).toEqual(['refuted', 'refuted']);
+    expect(Array.from(await ort.confirm(Float64Array.from(map.counterexample!.x), 1))).toEqual([1]);
+    // sound: no proven piece reaches into the open interval (−0.5, 0.5) where 1 wins
+    for (const b of map.provenBoxes) expect(b[0]![1] <= -0.5 || b[0]![0] >= 0.5).toBe(true);
+    // and it maps nearly all of the 3/4: within 2 % of the box (the pieces next to the ties at
+    // ±0.5 cannot be proven; 400 pieces halve down to 4/2^8 ≈ 0.016 wide there)
+    expect(map.provenVolumeFraction).toBeGreaterThan(0.73);
+    expect(map.provenVolumeFraction).toBeLessThanOrEqual(0.75);
+    expect(stop.provenVolumeFraction).toBeLessThan(map.provenVolumeFraction);
+    await ort.release();
+  });
+
+  it('with keepGoing never proves a piece that dense runtime sampling refutes (random networks, seeded)', async () => {
+    await fc.assert(
+      fc.asyncProperty(fc.integer({ min: 1, max: 2 ** 31 - 1 }), fc.integer({ min: 1, max: 3 }), async (seed, d) => {
+        const c = await randomCase(seed, d);
+        await expectSound(c, c.box, await proveBox(c.net, c.box, [c.centre], 'argmax', { ...c.opts, maxBoxes: 200, keepGoing: true }));
+      }),
+      { seed: 20261203, numRuns: 30 },
+    );
+  });
 });
+
+/** A seeded random 3-output network on d inputs, a box, and the runtime's advisory at its centre. */
+async function randomCase(seed: number, d: number) {
+  const rng = mulberry32(seed);
+  const bytes = writeMlpOnnx(randomMlp(rng, [d, 8, 8, 3], 1.5));
+  const lo = Array.from({ length: d }, () => Math.fround(-1 + rng()));
+  const hi = lo.map((v) => Math.fround(v + 0.05 + 2 * rng()));
+  const ort = await ortAdvisor(bytes, d, 'argmax');
+  const centre = (await ort.confirm(Float64Array.from(lo, (v, i) => (v + hi[i]!) / 2), 1))[0]!;
+  const box: Box = lo.map((v, i) => [v, hi[i]!] as const);
+  return { rng, net: read(bytes), ort, centre, box, opts: { maxSeconds: 600, now: clock(), confirm: ort.confirm } };
+}
+
+/**
+ * Every proven piece lies in the box and 200 runtime samples in it all give the centre's
+ * advisory; a refutation is confirmed by the runtime. Releases the case's session.
+ */
+async function expectSound(c: Awaited<ReturnType<typeof randomCase>>, box: Box, res: Awaited<ReturnType<typeof proveBox>>): Promise<void> {
+  for (const b of res.provenBoxes) {
+    b.forEach(([a, z], i) => expect(a >= box[i]![0] && z <= box[i]![1]).toBe(true));
+    const pts = samplePoints(c.rng, b.map((r) => r[0]), b.map((r) => r[1]), 200);
+    const adv = await c.ort.confirm(pts, 200);
+    expect(adv.every((a) => a === c.centre)).toBe(true);
+  }
+  if (res.status === 'refuted') expect(Array.from(await c.ort.confirm(Float64Array.from(res.counterexample!.x), 1))[0]).not.toBe(c.centre);
+  await c.ort.release();
+}

@@ -53,7 +53,9 @@ describe('repairRule', () => {
     expect(x1![0]).toBe(0);
     expect(x1![1]).toBeLessThan(4); // the tie on x1 = 4 cannot be proven
     expect(4 - x1![1]).toBeLessThanOrEqual(allowance(4.5));
-    expect(onGrid(x1![1], 0.1)).toBe(true);
+    // peeled at a multiple of 0.1, then grown by the fill towards the tie in steps no finer than
+    // the clearance (0.5 % of the width 4.5 ≈ 0.0225, so 0.05)
+    expect(onGrid(x1![1], 0.05)).toBe(true);
     expect(r.subRules[0]).toMatchObject({ id: 'R1.1', allowed: [0], origin: { kind: 'repaired', from: 'R1' } });
     expect(r.proofs[0]!.status).toBe('proven');
     // one product of two width ratios: float64 error ~1e-16; toBeCloseTo(…, 12) allows 5e-13
@@ -69,7 +71,8 @@ describe('repairRule', () => {
     expect(gap![1]).toBe(100);
     expect(gap![0]).toBeGreaterThan(60);
     expect(gap![0] - 60).toBeLessThanOrEqual(allowance(50));
-    expect(onGrid(gap![0], 1)).toBe(true);
+    // grown by the fill in steps no finer than the clearance (0.5 % of 50 = 0.25, so 0.5)
+    expect(onGrid(gap![0], 0.5)).toBe(true);
   });
 
   it('keeps a rule that already holds as one sub-rule equal to it', async () => {
