@@ -18,6 +18,12 @@ export const FILL_SHARE_DIVISOR = 4;
  * 500 covered 0.5–2 points more of each box than 3,000, with fewer pieces). Choice of this project.
  */
 export const MAP_PIECES_PER_CELL = 500;
+/**
+ * Passes of the map over the uncovered parts (while pieces are left): a second pass goes on
+ * from where the first stopped, as its proofs reuse the pieces proven before (on the demo's
+ * largest rule 95.5 % of the box after three passes, 94.4 % after one). Choice of this project.
+ */
+export const MAP_ROUNDS = 2;
 /** Seeds under this share of the smallest box kept are not tried (they rarely grow that far). */
 const SEED_SHARE_DIVISOR = 16;
 
@@ -52,10 +58,12 @@ export async function fillFromPieces(ctx: RepairContext, parts: readonly ProvenP
   const open = uncoveredBoxes(ctx.ruleBox, kept.map((p) => p.box)).sort((a, b) => share(b) - share(a));
   // no map when no new box may be kept: the kept parts still grow into the pieces proven so far
   const stopAt = kept.length >= options.maxSubRules ? 0 : Math.min(ctx.maxPieces, ctx.pieces + options.mapPieces);
-  for (const cell of open) {
-    if (timeLeft(ctx) <= 0 || ctx.pieces >= stopAt) break;
-    if (share(cell) < options.minVolumeShare / 8) continue;
-    await proveIn(ctx, cell, { maxBoxes: Math.min(MAP_PIECES_PER_CELL, stopAt - ctx.pieces) });
+  for (let round = 0; round < MAP_ROUNDS; round++) {
+    for (const cell of open) {
+      if (timeLeft(ctx) <= 0 || ctx.pieces >= stopAt) break;
+      if (share(cell) < options.minVolumeShare / 8) continue;
+      await proveIn(ctx, cell, { maxBoxes: Math.min(MAP_PIECES_PER_CELL, stopAt - ctx.pieces) });
+    }
   }
   // first the kept parts grow (no new sub-rule), then new boxes are cut where they cannot reach
   kept.sort((a, b) => share(b.box) - share(a.box));
