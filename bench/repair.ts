@@ -12,7 +12,7 @@ import { loadScenario } from '../src/scenario/index.js';
 import { loadModel } from '../src/model/index.js';
 import { mine } from '../src/pipeline/mine.js';
 import { readNetworkOf } from '../src/pipeline/read-network.js';
-import { REPAIR_PIECES_FLOOR, REPAIR_PIECES_PER_DOMAIN, settleRule } from '../src/pipeline/settle-rule.js';
+import { REPAIR_FILL_PIECES_PER_DOMAIN, REPAIR_PIECES_FLOOR, REPAIR_PIECES_PER_DOMAIN, settleRule } from '../src/pipeline/settle-rule.js';
 import { MINE_DEFAULTS } from '../src/cli/commands/mine.js';
 import { benchMineSettings } from './_mine-defaults.js';
 import { provenCoverage } from '../src/repair/index.js';
@@ -60,7 +60,8 @@ export async function run(): Promise<string> {
     '',
     `The survey-boat table mined with the CLI defaults (seed 1, ${n} rules), every rule settled in one thread as ` +
       '`mine --repair` settles it (proof, repair with the per-rule piece budget ' +
-      `${REPAIR_PIECES_FLOOR} + volume share × ${REPAIR_PIECES_PER_DOMAIN}, dense check of the sub-rules; bench/repair.ts; ` +
+      `${REPAIR_PIECES_FLOOR} + volume share × ${REPAIR_PIECES_PER_DOMAIN}, of which the fill's map may take volume share × ` +
+      `${REPAIR_FILL_PIECES_PER_DOMAIN}, dense check of the sub-rules; bench/repair.ts; ` +
       `${availableParallelism()} cores, load average ${loadavg()[0]!.toFixed(1)} at the end).`,
     '',
     '| figure | value | target |',
