@@ -1,18 +1,22 @@
 /**
  * Sampling benchmark: raw batched onnxruntime throughput on a 5-input, 6×50 ReLU network, on
  * one intra-op thread and on two, against `sampleDomain` on the same model and the same number
- * of samples with --jobs 1 (this thread) and --jobs 2 (two model workers), measured side by
- * side (interleaved repetitions) in one process. Run: `npx tsx bench/run-all.ts sampling`.
+ * of samples with --jobs 1 (this thread) and --jobs 2 (two model workers), and as `specula
+ * mine` runs it with its default settings (boundary share, and this thread or workers as
+ * `threadsForWork` decides), measured side by side (interleaved repetitions) in one process.
+ * Run: `npx tsx bench/run-all.ts sampling`.
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { cpus, loadavg, tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { availableParallelism, cpus, loadavg, tmpdir } from 'node:os';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import * as ort from 'onnxruntime-node';
 import { loadModel, writeMlpOnnx, type DenseLayer } from '../src/model/index.js';
-import { modelJobs } from '../src/pipeline/model-jobs.js';
+import { modelJobs, threadsForWork, WORKER_MIN_EVALUATIONS } from '../src/pipeline/model-jobs.js';
 import { createRng, sampleDomain } from '../src/sampling/index.js';
 import type { InputSpec, Scenario } from '../src/types.js';
+import { benchMineSettings } from './_mine-defaults.js';
 
 const D = 5;
 const HIDDEN = 50;
@@ -25,6 +29,18 @@ const REPEATS = Number(process.env.BENCH_REPEATS ?? 10);
 /** Untimed runs of every measured path before timing (the JIT settles in the first few). */
 const WARM_UPS = 2;
 const TARGET_RATIO = 0.6;
+/** `specula mine`'s defaults, with its default --jobs (the available cores). */
+const CLI = benchMineSettings(availableParallelism());
+
+/**
+ * Threads the CLI's model work runs on for a mine run of `samples` with its default settings:
+ * mine's count of network evaluations (samples, dense checks of every rule, fidelity; see
+ * src/pipeline/mine.ts) through `threadsForWork`; the benchmark has two workers, so at most 2.
+ */
+function cliThreads(samples: number): number {
+  const evaluations = samples + CLI.maxRules * CLI.checkSamples + CLI.fidelitySamples;
+  return Math.min(2, threadsForWork(evaluations, CLI.jobs));
+}
 
 const INPUTS: readonly InputSpec[] = [
   { name: 'cpa_nm', unit: 'nmi', min: 0, max: 1.5, description: '' },
@@ -104,14 +120,12 @@ function mineMemory(samples: number, jobs: number): { mb: number; seconds: numbe
   return { mb: Number(m[1]) / 1024, seconds: Number(m[2]) };
 }
 
-export async function run(): Promise<string> {
-  const dir = mkdtempSync(join(tmpdir(), 'specula-bench-'));
-  const modelPath = join(dir, 'model.onnx');
-  writeFileSync(modelPath, writeMlpOnnx(network(2024)));
-  const scenario: Scenario = {
+/** The benchmark's scenario around the model file at `modelPath`. */
+function benchScenario(modelPath: string): Scenario {
+  return {
     name: 'bench',
     title: 'sampling benchmark',
-    scenarioPath: join(dir, 'scenario.json'),
+    scenarioPath: join(dirname(modelPath), 'scenario.json'),
     scenarioSha256: '',
     modelPath,
     decision: 'argmax',
@@ -119,13 +133,68 @@ export async function run(): Promise<string> {
     advisories: ['a', 'b', 'c', 'd', 'e'],
     normalize: { offset: INPUTS.map((s) => (s.min + s.max) / 2), scale: INPUTS.map((s) => (s.max - s.min) / 2) },
   };
-  // raw: sessions with the model stage's settings, one and two intra-op threads, fixed float32 batch
-  const rawSession = (threads: number) =>
-    ort.InferenceSession.create(modelPath, { intraOpNumThreads: threads, interOpNumThreads: 1, executionMode: 'sequential', graphOptimizationLevel: 'all' });
-  const raw1 = await rawSession(1);
-  const raw2 = await rawSession(2);
+}
+
+/** A session with the model stage's settings on `threads` intra-op threads. */
+function rawSession(modelPath: string, threads: number): Promise<ort.InferenceSession> {
+  return ort.InferenceSession.create(modelPath, { intraOpNumThreads: threads, interOpNumThreads: 1, executionMode: 'sequential', graphOptimizationLevel: 'all' });
+}
+
+/** Raw's fixed float32 batch (seeded values in the network's normalised range). */
+function rawInput(): ort.Tensor {
   const rng = createRng(1);
-  const input = new ort.Tensor('float32', Float32Array.from({ length: RAW_BATCH * D }, () => 2 * rng() - 1), [RAW_BATCH, D]);
+  return new ort.Tensor('float32', Float32Array.from({ length: RAW_BATCH * D }, () => 2 * rng() - 1), [RAW_BATCH, D]);
+}
+
+/** The argument that makes this file run one fresh-process measurement (`freshChild`). */
+const FRESH_CHILD = '--fresh-child';
+/** Fresh processes per measured size. */
+const FRESH_RUNS = 3;
+
+/**
+ * One fresh-process measurement, as a CLI run meets sampling: a new process, the first
+ * `sampleDomain` call (compiler cold, result arrays fresh memory) with the CLI's default
+ * boundary share in this thread, after one batch through the model's session to start
+ * onnxruntime; then raw on the same number of rows in a one-thread session, also after one
+ * batch. Prints {"sampleMs", "rawMs"}.
+ */
+async function freshChild(modelPath: string, samples: number): Promise<void> {
+  const scenario = benchScenario(modelPath);
+  const model = await loadModel(scenario, { threads: 1 });
+  const raw = await rawSession(modelPath, 1);
+  const input = rawInput();
+  await model.evaluate(new Float64Array(16_384 * D), 16_384);
+  await raw.run({ input });
+  const t0 = performance.now();
+  await sampleDomain(INPUTS, modelJobs(scenario, model, 1).labeller, { seed: 1, budget: samples, boundaryShare: CLI.boundaryShare });
+  const sampleMs = performance.now() - t0;
+  const rawMs = await rawRun(raw, input, samples);
+  process.stdout.write(JSON.stringify({ sampleMs, rawMs }) + '\n');
+  await raw.release();
+  await model.close();
+}
+
+if (process.argv[2] === FRESH_CHILD) await freshChild(process.argv[3]!, Number(process.argv[4]));
+
+/** Shares raw / sampleDomain of FRESH_RUNS fresh processes (`freshChild`), in run order. */
+function freshShares(modelPath: string, samples: number): number[] {
+  return Array.from({ length: FRESH_RUNS }, () => {
+    const r = spawnSync(process.execPath, [...process.execArgv, fileURLToPath(import.meta.url), FRESH_CHILD, modelPath, String(samples)], { encoding: 'utf8' });
+    if (r.status !== 0) throw new Error(`fresh-process sampling run failed: ${r.stderr}`);
+    const { sampleMs, rawMs } = JSON.parse(r.stdout.trim().split('\n').pop()!) as { sampleMs: number; rawMs: number };
+    return rawMs / sampleMs;
+  });
+}
+
+export async function run(): Promise<string> {
+  const dir = mkdtempSync(join(tmpdir(), 'specula-bench-'));
+  const modelPath = join(dir, 'model.onnx');
+  writeFileSync(modelPath, writeMlpOnnx(network(2024)));
+  const scenario = benchScenario(modelPath);
+  // raw: sessions with the model stage's settings, one and two intra-op threads, fixed float32 batch
+  const raw1 = await rawSession(modelPath, 1);
+  const raw2 = await rawSession(modelPath, 2);
+  const input = rawInput();
   const model = await loadModel(scenario, { threads: 1 });
   const one = modelJobs(scenario, model, 1);
   const startMs = performance.now();
@@ -139,14 +208,18 @@ export async function run(): Promise<string> {
     freshArrays(200_000);
     await sampleDomain(INPUTS, one.labeller, { seed: 1, budget: 200_000 });
     await sampleDomain(INPUTS, two.labeller, { seed: 1, budget: 200_000 });
+    await sampleDomain(INPUTS, one.labeller, { seed: 1, budget: 200_000, boundaryShare: CLI.boundaryShare });
   }
 
   const loadAtStart = loadavg()[0]!;
   const rows: string[] = [];
+  /** ms per MB of the first touch, per size. */
+  const faultRates: number[] = [];
   const verdicts: string[] = [];
   let advisoriesSeen = 0;
   for (const samples of SIZES) {
-    const times = { raw1: [] as number[], raw2: [] as number[], jobs1: [] as number[], jobs2: [] as number[], fresh: [] as number[] };
+    const times = { raw1: [] as number[], raw2: [] as number[], jobs1: [] as number[], jobs2: [] as number[], cli: [] as number[], fresh: [] as number[] };
+    const cliJobs = cliThreads(samples);
     // CPU time of the process, every thread: raw on one thread, and sampleDomain with jobs 2
     const cpu = { raw1: [] as number[], jobs2: [] as number[] };
     const cpuOf = async (f: () => Promise<unknown>, into: number[]): Promise<void> => {
@@ -173,6 +246,11 @@ export async function run(): Promise<string> {
           times.jobs2.push(performance.now() - t0);
         }, cpu.jobs2);
       },
+      async (r) => {
+        const t0 = performance.now();
+        await sampleDomain(INPUTS, (cliJobs === 1 ? one : two).labeller, { seed: 100 + r, budget: samples, boundaryShare: CLI.boundaryShare });
+        times.cli.push(performance.now() - t0);
+      },
       async () => void times.fresh.push(freshArrays(samples)),
     ];
     for (let r = 0; r < REPEATS; r++) {
@@ -186,15 +264,20 @@ export async function run(): Promise<string> {
     const m = (ms: number[]): string => (rate(ms) / 1e6).toFixed(2);
     const same1 = share(times.jobs1, times.raw1);
     const same2 = share(times.jobs2, times.raw2);
-    verdicts.push(`${samples.toLocaleString('en')}: jobs 1 ${pc(same1)}, jobs 2 ${pc(same2)} of raw on as many cores`);
+    const sameCli = share(times.cli, cliJobs === 1 ? times.raw1 : times.raw2);
+    const cliPath = cliJobs === 1 ? 'this thread' : `${cliJobs} workers`;
+    verdicts.push(`${samples.toLocaleString('en')}: jobs 1 ${pc(same1)}, jobs 2 ${pc(same2)}, CLI default (${cliPath}) ${pc(sameCli)} of raw on as many threads`);
     const fresh = median(times.fresh.map((t, r) => t / times.raw1[r]!));
+    faultRates.push(median(times.fresh) / ((samples * (8 * D + 8)) / 1048576));
     // raw's CPU time over jobs 2's (all threads) for the same samples: the share of its CPU
     // time jobs 2 spends in the network, whatever cores the load leaves it
     const efficiency = share(cpu.jobs2, cpu.raw1);
     rows.push(
-      `| ${samples.toLocaleString('en')} | ${m(times.raw1)} | ${m(times.raw2)} | **${m(times.jobs1)} (${pc(same1)})** | **${m(times.jobs2)} (${pc(same2)})** | ${pc(share(times.jobs2, times.raw1))} | ${pc(share(times.raw1, times.raw2))} | ${pc(efficiency)} | ${pc(fresh)} |`,
+      `| ${samples.toLocaleString('en')} | ${m(times.raw1)} | ${m(times.raw2)} | **${m(times.jobs1)} (${pc(same1)})** | **${m(times.jobs2)} (${pc(same2)})** | **${m(times.cli)} (${pc(sameCli)}), ${cliPath}** | ${pc(share(times.jobs2, times.raw1))} | ${pc(share(times.raw1, times.raw2))} | ${pc(efficiency)} | ${pc(fresh)} | ${pc(1 / (1 + fresh))} |`,
     );
   }
+  // the CLI's one-thread sizes again, each in fresh processes (one at a time, after the rest)
+  const freshRuns = SIZES.filter((n) => cliThreads(n) === 1).map((n) => ({ n, shares: freshShares(modelPath, n) }));
   await raw1.release();
   await raw2.release();
   await two.close();
@@ -226,34 +309,51 @@ Same model every way: a ${D}-input, ${LAYERS}×${HIDDEN} ReLU network with ${K} 
 random weights, written with \`writeMlpOnnx\`), onnxruntime-node ${ort.env.versions.common},
 ${cpus().length}-core machine, Node ${process.version}. **Raw**: \`session.run\` on a fixed float32
 batch of ${RAW_BATCH.toLocaleString('en')} rows, repeated to the sample count, in a session with one
-intra-op thread and in one with two. **jobs 1**: \`sampleDomain\` with that budget (the
-function's default: jittered grid + Sobol for 40 %, four refinement rounds for 60 %) labelled in
-this thread by the model stage (\`labelInPlace\`: float64 → normalised float32, argmax and margin
-written straight into the sample set), batches of 16,384 — what \`specula mine --jobs 1\` runs.
-**jobs 2**: the same with two model workers (\`modelJobs\`, one onnxruntime session with one
-intra-op thread each; the sample set in shared memory, up to 4 batches in flight while the main
-thread generates and refines) — \`--jobs 2\`; the sample sets are identical. The workers'
-start-up (onnxruntime and the model loaded in each) is not in the rates: ${startUp.toFixed(0)} ms here, once
-per run. Every path runs ${WARM_UPS} times untimed first, then ${REPEATS} repetitions of all paths in an
-order rotating from one to the next: rates are medians, shares are medians of each
+intra-op thread and in one with two. **jobs 1**: \`sampleDomain\` with that budget and the
+function's default boundary share (jittered grid + Sobol for 40 %, four refinement rounds for
+60 %), labelled in this thread by the model stage (\`labelInPlace\`: float64 → normalised
+float32, argmax and margin written straight into the sample set; one onnxruntime session with
+one intra-op thread), batches of 16,384. **jobs 2**: the same with two model workers
+(\`modelJobs\`, one onnxruntime session with one intra-op thread each; the sample set in shared
+memory, up to 4 batches in flight while the main thread generates and refines); the sample sets
+are identical. **CLI default**: what \`specula mine\` runs with its default settings at that
+sample count — boundary share ${CLI.boundaryShare} (${100 - 100 * CLI.boundaryShare} % grid + Sobol), and the model's work on
+this thread or on workers as \`threadsForWork\` decides from the run's network evaluations
+(samples + ${CLI.maxRules} rules × ${CLI.checkSamples.toLocaleString('en')} dense checks + ${CLI.fidelitySamples.toLocaleString('en')} fidelity samples, workers from
+${WORKER_MIN_EVALUATIONS.toLocaleString('en')}) with --jobs = the ${CLI.jobs} available cores; it is compared with raw on as many
+threads as it uses (one intra-op thread in this thread; two workers against raw on two). The
+workers' start-up (onnxruntime and the model loaded in each) is not in the rates: ${startUp.toFixed(0)} ms
+here, once per run. Every path runs ${WARM_UPS} times untimed first, then ${REPEATS} repetitions of all
+paths in an order rotating from one to the next: rates are medians, shares are medians of each
 repetition's own ratio. One-minute load average when the benchmark started: ${loadAtStart.toFixed(1)} on
 ${cpus().length} cores (the machine is shared; ratios are the figures to compare).
 
-| samples | raw, 1 thread (M/s) | raw, 2 threads (M/s) | jobs 1 (M/s, % of raw 1 thread) | jobs 2 (M/s, % of raw 2 threads) | jobs 2, % of raw 1 thread | raw 1 thread, % of raw 2 threads | CPU time: raw 1 thread / jobs 2 (all threads) | first touch of the result arrays, % of raw 1-thread time |
-| ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |
+| samples | raw, 1 thread (M/s) | raw, 2 threads (M/s) | jobs 1 (M/s, % of raw 1 thread) | jobs 2 (M/s, % of raw 2 threads) | CLI default (M/s, % of raw on as many threads), threads | jobs 2, % of raw 1 thread | raw 1 thread, % of raw 2 threads | CPU time: raw 1 thread / jobs 2 (all threads) | first touch of the result arrays, % of raw 1-thread time | one-thread ceiling: raw / (raw + first touch) |
+| ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |
 ${rows.join('\n')}
 
 **Target** (design): sampling ≥ ${100 * TARGET_RATIO} % of raw batched onnxruntime throughput on the same
-model. It is judged here on the same number of cores — jobs 1 against raw on one intra-op
-thread, jobs 2 against raw on two — because that ratio is what the sampler's own overhead
-costs: comparing jobs 2 with one-thread raw (the design's reference figure, measured on one
-thread) would credit the second core to the sampler. That column is shown for reference.
-Measured: ${verdicts.join('; ')}. The CPU-time column depends little on the load: it is the
-share of jobs 2's CPU time (every thread) that raw needs for the same number of samples, so
-twice it, in units of one-thread raw, bounds what jobs 2 can reach on two idle cores. "First touch" allocates arrays the size of the sample set
-(x, advisory, margin: ${8 * D + 8} bytes a sample) and writes each element once: fresh memory faults in
-at about 4–5 ms/MB on this VM (docs/sampling.md), a cost any sampler that returns new arrays
-pays on top of the network. Advisories seen in the last sample set: ${advisoriesSeen} of ${K}.
+model. It is judged here on the same number of threads — jobs 1 against raw on one intra-op
+thread, jobs 2 against raw on two, the CLI default against raw on as many threads as it uses —
+because that ratio is what the sampler's own overhead costs: comparing a path on two threads
+with one-thread raw would credit the second core to the sampler (that column is shown for
+reference only). Measured: ${verdicts.join('; ')}. The CPU-time column depends little on the
+load: it is the share of jobs 2's CPU time (every thread) that raw needs for the same number of
+samples, so twice it, in units of one-thread raw, bounds what jobs 2 can reach on two idle
+cores. "First touch" allocates arrays the size of the sample set (x, advisory, margin: ${8 * D + 8}
+bytes a sample) and writes each element once: fresh memory faulted in at ${faultRates.map((r) => r.toFixed(1)).join(' and ')} ms/MB here
+(docs/sampling.md), a cost any sampler that returns new arrays pays on top of the network, and
+in one thread it cannot overlap the network (onnxruntime-node runs \`session.run\` on the
+calling thread). The last column is therefore the most a one-thread sampler can reach even if
+making the points and labelling them cost nothing beyond raw. Advisories seen in the last
+sample set: ${advisoriesSeen} of ${K}.
+
+**Fresh process** (what a CLI run meets; the table above is the steady state of one long
+process, where freed memory and compiled code are reused): for each size the CLI samples in
+this thread, ${FRESH_RUNS} new processes each time the first \`sampleDomain\` call with the CLI's default
+boundary share (compiler cold, result arrays fresh memory) after one batch through the model,
+then raw on one intra-op thread for as many rows (after one batch). raw / sampling:
+${freshRuns.map(({ n, shares }) => `${n.toLocaleString('en')} samples ${shares.map((v) => `${(100 * v).toFixed(0)} %`).join(', ')} (median ${(100 * median(shares)).toFixed(0)} %)`).join('; ') || 'no size runs in this thread'}.
 
 ${memoryText}`;
 }
