@@ -8,77 +8,21 @@
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { availableParallelism, cpus, loadavg, tmpdir } from 'node:os';
-import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { cpus, loadavg, tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
 import * as ort from 'onnxruntime-node';
-import { loadModel, writeMlpOnnx, type DenseLayer } from '../src/model/index.js';
-import { modelJobs, threadsForWork, WORKER_MIN_EVALUATIONS } from '../src/pipeline/model-jobs.js';
-import { createRng, sampleDomain } from '../src/sampling/index.js';
-import type { InputSpec, Scenario } from '../src/types.js';
-import { benchMineSettings } from './_mine-defaults.js';
+import { loadModel, writeMlpOnnx } from '../src/model/index.js';
+import { modelJobs, WORKER_MIN_EVALUATIONS } from '../src/pipeline/model-jobs.js';
+import { sampleDomain } from '../src/sampling/index.js';
+import { FRESH_RUNS, freshShares, RAW_WARM_RUNS } from './_sampling-fresh.js';
+import { benchScenario, CLI, cliThreads, D, HIDDEN, INPUTS, K, LAYERS, median, network, RAW_BATCH, rawInput, rawRun, rawSession } from './_sampling-setup.js';
 
-const D = 5;
-const HIDDEN = 50;
-const LAYERS = 6;
-const K = 5;
-const RAW_BATCH = 10_000;
 /** The CLI's default budget, and a large one. */
 const SIZES = [200_000, 1_000_000] as const;
 const REPEATS = Number(process.env.BENCH_REPEATS ?? 10);
 /** Untimed runs of every measured path before timing (the JIT settles in the first few). */
 const WARM_UPS = 2;
 const TARGET_RATIO = 0.6;
-/** `specula mine`'s defaults, with its default --jobs (the available cores). */
-const CLI = benchMineSettings(availableParallelism());
-
-/**
- * Threads the CLI's model work runs on for a mine run of `samples` with its default settings:
- * mine's count of network evaluations (samples, dense checks of every rule, fidelity; see
- * src/pipeline/mine.ts) through `threadsForWork`; the benchmark has two workers, so at most 2.
- */
-function cliThreads(samples: number): number {
-  const evaluations = samples + CLI.maxRules * CLI.checkSamples + CLI.fidelitySamples;
-  return Math.min(2, threadsForWork(evaluations, CLI.jobs));
-}
-
-const INPUTS: readonly InputSpec[] = [
-  { name: 'cpa_nm', unit: 'nmi', min: 0, max: 1.5, description: '' },
-  { name: 'tcpa_min', unit: 'min', min: -2, max: 20, description: '' },
-  { name: 'bearing_deg', unit: 'deg', min: -180, max: 180, description: '' },
-  { name: 'rel_course_deg', unit: 'deg', min: -180, max: 180, description: '' },
-  { name: 'own_speed_kn', unit: 'kn', min: 0, max: 10, description: '' },
-];
-
-/** A seeded random ReLU network (He-scaled weights) so that its advisories vary over the box. */
-function network(seed: number): DenseLayer[] {
-  const rng = createRng(seed);
-  const layer = (inSize: number, outSize: number, activation: 'relu' | 'none'): DenseLayer => {
-    const scale = Math.sqrt(6 / inSize);
-    return {
-      inSize,
-      outSize,
-      weights: Array.from({ length: inSize * outSize }, () => (2 * rng() - 1) * scale),
-      bias: Array.from({ length: outSize }, () => 0.1 * (2 * rng() - 1)),
-      activation,
-    };
-  };
-  const layers = [layer(D, HIDDEN, 'relu')];
-  for (let i = 1; i < LAYERS; i++) layers.push(layer(HIDDEN, HIDDEN, 'relu'));
-  layers.push(layer(HIDDEN, K, 'none'));
-  return layers;
-}
-
-function median(v: number[]): number {
-  const s = [...v].sort((a, b) => a - b);
-  return s[Math.floor(s.length / 2)]!;
-}
-
-async function rawRun(session: ort.InferenceSession, input: ort.Tensor, samples: number): Promise<number> {
-  const t0 = performance.now();
-  for (let done = 0; done < samples; done += RAW_BATCH) await session.run({ input });
-  return performance.now() - t0;
-}
 
 /**
  * Allocates arrays the size of a sample set's (x, advisory, margin) and writes every element
@@ -118,74 +62,6 @@ function mineMemory(samples: number, jobs: number): { mb: number; seconds: numbe
   const m = /(\d+) ([\d.]+)\s*$/.exec(r.stderr);
   if (r.status !== 0 || !m) throw new Error(`mine --samples ${samples} failed: ${r.stderr}`);
   return { mb: Number(m[1]) / 1024, seconds: Number(m[2]) };
-}
-
-/** The benchmark's scenario around the model file at `modelPath`. */
-function benchScenario(modelPath: string): Scenario {
-  return {
-    name: 'bench',
-    title: 'sampling benchmark',
-    scenarioPath: join(dirname(modelPath), 'scenario.json'),
-    scenarioSha256: '',
-    modelPath,
-    decision: 'argmax',
-    inputs: INPUTS,
-    advisories: ['a', 'b', 'c', 'd', 'e'],
-    normalize: { offset: INPUTS.map((s) => (s.min + s.max) / 2), scale: INPUTS.map((s) => (s.max - s.min) / 2) },
-  };
-}
-
-/** A session with the model stage's settings on `threads` intra-op threads. */
-function rawSession(modelPath: string, threads: number): Promise<ort.InferenceSession> {
-  return ort.InferenceSession.create(modelPath, { intraOpNumThreads: threads, interOpNumThreads: 1, executionMode: 'sequential', graphOptimizationLevel: 'all' });
-}
-
-/** Raw's fixed float32 batch (seeded values in the network's normalised range). */
-function rawInput(): ort.Tensor {
-  const rng = createRng(1);
-  return new ort.Tensor('float32', Float32Array.from({ length: RAW_BATCH * D }, () => 2 * rng() - 1), [RAW_BATCH, D]);
-}
-
-/** The argument that makes this file run one fresh-process measurement (`freshChild`). */
-const FRESH_CHILD = '--fresh-child';
-/** Fresh processes per measured size. */
-const FRESH_RUNS = 3;
-/** Untimed raw batches before raw is timed in a fresh process. */
-const RAW_WARM_RUNS = 3;
-
-/**
- * One fresh-process measurement, as a CLI run meets sampling: a new process, the model loaded
- * as the CLI loads it (its one-row probe run only), then the first `sampleDomain` call
- * (compiler cold, result arrays and onnxruntime's working memory fresh) with the CLI's default
- * boundary share in this thread; then raw on the same number of rows in a one-thread session
- * after RAW_WARM_RUNS untimed batches (raw is the steady-state reference: onnxruntime's first
- * two full batches fault in its working memory, docs/sampling.md). Prints {"sampleMs", "rawMs"}.
- */
-async function freshChild(modelPath: string, samples: number): Promise<void> {
-  const scenario = benchScenario(modelPath);
-  const model = await loadModel(scenario, { threads: 1 });
-  const raw = await rawSession(modelPath, 1);
-  const input = rawInput();
-  for (let w = 0; w < RAW_WARM_RUNS; w++) await raw.run({ input });
-  const t0 = performance.now();
-  await sampleDomain(INPUTS, modelJobs(scenario, model, 1).labeller, { seed: 1, budget: samples, boundaryShare: CLI.boundaryShare });
-  const sampleMs = performance.now() - t0;
-  const rawMs = await rawRun(raw, input, samples);
-  process.stdout.write(JSON.stringify({ sampleMs, rawMs }) + '\n');
-  await raw.release();
-  await model.close();
-}
-
-if (process.argv[2] === FRESH_CHILD) await freshChild(process.argv[3]!, Number(process.argv[4]));
-
-/** Shares raw / sampleDomain of FRESH_RUNS fresh processes (`freshChild`), in run order. */
-function freshShares(modelPath: string, samples: number): number[] {
-  return Array.from({ length: FRESH_RUNS }, () => {
-    const r = spawnSync(process.execPath, [...process.execArgv, fileURLToPath(import.meta.url), FRESH_CHILD, modelPath, String(samples)], { encoding: 'utf8' });
-    if (r.status !== 0) throw new Error(`fresh-process sampling run failed: ${r.stderr}`);
-    const { sampleMs, rawMs } = JSON.parse(r.stdout.trim().split('\n').pop()!) as { sampleMs: number; rawMs: number };
-    return rawMs / sampleMs;
-  });
 }
 
 export async function run(): Promise<string> {
