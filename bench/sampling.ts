@@ -1,68 +1,28 @@
 /**
  * Sampling benchmark: raw batched onnxruntime throughput on a 5-input, 6×50 ReLU network, on
  * one intra-op thread and on two, against `sampleDomain` on the same model and the same number
- * of samples with --jobs 1 (this thread) and --jobs 2 (two model workers), measured side by
- * side (interleaved repetitions) in one process. Run: `npx tsx bench/run-all.ts sampling`.
+ * of samples with --jobs 1 (this thread) and --jobs 2 (two model workers), and as `specula
+ * mine` runs it with its default settings (boundary share, and this thread or workers as
+ * `threadsForWork` decides), measured side by side (interleaved repetitions) in one process.
+ * Run: `npx tsx bench/run-all.ts sampling`.
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, loadavg, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import * as ort from 'onnxruntime-node';
-import { loadModel, writeMlpOnnx, type DenseLayer } from '../src/model/index.js';
-import { modelJobs } from '../src/pipeline/model-jobs.js';
-import { createRng, sampleDomain } from '../src/sampling/index.js';
-import type { InputSpec, Scenario } from '../src/types.js';
+import { loadModel, writeMlpOnnx } from '../src/model/index.js';
+import { modelJobs, WORKER_MIN_EVALUATIONS } from '../src/pipeline/model-jobs.js';
+import { sampleDomain } from '../src/sampling/index.js';
+import { FRESH_RUNS, freshShares, RAW_WARM_RUNS } from './_sampling-fresh.js';
+import { benchScenario, CLI, cliThreads, D, HIDDEN, INPUTS, K, LAYERS, median, network, RAW_BATCH, rawInput, rawRun, rawSession } from './_sampling-setup.js';
 
-const D = 5;
-const HIDDEN = 50;
-const LAYERS = 6;
-const K = 5;
-const RAW_BATCH = 10_000;
 /** The CLI's default budget, and a large one. */
 const SIZES = [200_000, 1_000_000] as const;
 const REPEATS = Number(process.env.BENCH_REPEATS ?? 10);
 /** Untimed runs of every measured path before timing (the JIT settles in the first few). */
 const WARM_UPS = 2;
 const TARGET_RATIO = 0.6;
-
-const INPUTS: readonly InputSpec[] = [
-  { name: 'cpa_nm', unit: 'nmi', min: 0, max: 1.5, description: '' },
-  { name: 'tcpa_min', unit: 'min', min: -2, max: 20, description: '' },
-  { name: 'bearing_deg', unit: 'deg', min: -180, max: 180, description: '' },
-  { name: 'rel_course_deg', unit: 'deg', min: -180, max: 180, description: '' },
-  { name: 'own_speed_kn', unit: 'kn', min: 0, max: 10, description: '' },
-];
-
-/** A seeded random ReLU network (He-scaled weights) so that its advisories vary over the box. */
-function network(seed: number): DenseLayer[] {
-  const rng = createRng(seed);
-  const layer = (inSize: number, outSize: number, activation: 'relu' | 'none'): DenseLayer => {
-    const scale = Math.sqrt(6 / inSize);
-    return {
-      inSize,
-      outSize,
-      weights: Array.from({ length: inSize * outSize }, () => (2 * rng() - 1) * scale),
-      bias: Array.from({ length: outSize }, () => 0.1 * (2 * rng() - 1)),
-      activation,
-    };
-  };
-  const layers = [layer(D, HIDDEN, 'relu')];
-  for (let i = 1; i < LAYERS; i++) layers.push(layer(HIDDEN, HIDDEN, 'relu'));
-  layers.push(layer(HIDDEN, K, 'none'));
-  return layers;
-}
-
-function median(v: number[]): number {
-  const s = [...v].sort((a, b) => a - b);
-  return s[Math.floor(s.length / 2)]!;
-}
-
-async function rawRun(session: ort.InferenceSession, input: ort.Tensor, samples: number): Promise<number> {
-  const t0 = performance.now();
-  for (let done = 0; done < samples; done += RAW_BATCH) await session.run({ input });
-  return performance.now() - t0;
-}
 
 /**
  * Allocates arrays the size of a sample set's (x, advisory, margin) and writes every element
@@ -108,24 +68,11 @@ export async function run(): Promise<string> {
   const dir = mkdtempSync(join(tmpdir(), 'specula-bench-'));
   const modelPath = join(dir, 'model.onnx');
   writeFileSync(modelPath, writeMlpOnnx(network(2024)));
-  const scenario: Scenario = {
-    name: 'bench',
-    title: 'sampling benchmark',
-    scenarioPath: join(dir, 'scenario.json'),
-    scenarioSha256: '',
-    modelPath,
-    decision: 'argmax',
-    inputs: INPUTS,
-    advisories: ['a', 'b', 'c', 'd', 'e'],
-    normalize: { offset: INPUTS.map((s) => (s.min + s.max) / 2), scale: INPUTS.map((s) => (s.max - s.min) / 2) },
-  };
+  const scenario = benchScenario(modelPath);
   // raw: sessions with the model stage's settings, one and two intra-op threads, fixed float32 batch
-  const rawSession = (threads: number) =>
-    ort.InferenceSession.create(modelPath, { intraOpNumThreads: threads, interOpNumThreads: 1, executionMode: 'sequential', graphOptimizationLevel: 'all' });
-  const raw1 = await rawSession(1);
-  const raw2 = await rawSession(2);
-  const rng = createRng(1);
-  const input = new ort.Tensor('float32', Float32Array.from({ length: RAW_BATCH * D }, () => 2 * rng() - 1), [RAW_BATCH, D]);
+  const raw1 = await rawSession(modelPath, 1);
+  const raw2 = await rawSession(modelPath, 2);
+  const input = rawInput();
   const model = await loadModel(scenario, { threads: 1 });
   const one = modelJobs(scenario, model, 1);
   const startMs = performance.now();
@@ -139,14 +86,18 @@ export async function run(): Promise<string> {
     freshArrays(200_000);
     await sampleDomain(INPUTS, one.labeller, { seed: 1, budget: 200_000 });
     await sampleDomain(INPUTS, two.labeller, { seed: 1, budget: 200_000 });
+    await sampleDomain(INPUTS, one.labeller, { seed: 1, budget: 200_000, boundaryShare: CLI.boundaryShare });
   }
 
   const loadAtStart = loadavg()[0]!;
   const rows: string[] = [];
+  /** ms per MB of the first touch, per size. */
+  const faultRates: number[] = [];
   const verdicts: string[] = [];
   let advisoriesSeen = 0;
   for (const samples of SIZES) {
-    const times = { raw1: [] as number[], raw2: [] as number[], jobs1: [] as number[], jobs2: [] as number[], fresh: [] as number[] };
+    const times = { raw1: [] as number[], raw2: [] as number[], jobs1: [] as number[], jobs2: [] as number[], cli: [] as number[], fresh: [] as number[] };
+    const cliJobs = cliThreads(samples);
     // CPU time of the process, every thread: raw on one thread, and sampleDomain with jobs 2
     const cpu = { raw1: [] as number[], jobs2: [] as number[] };
     const cpuOf = async (f: () => Promise<unknown>, into: number[]): Promise<void> => {
@@ -173,6 +124,11 @@ export async function run(): Promise<string> {
           times.jobs2.push(performance.now() - t0);
         }, cpu.jobs2);
       },
+      async (r) => {
+        const t0 = performance.now();
+        await sampleDomain(INPUTS, (cliJobs === 1 ? one : two).labeller, { seed: 100 + r, budget: samples, boundaryShare: CLI.boundaryShare });
+        times.cli.push(performance.now() - t0);
+      },
       async () => void times.fresh.push(freshArrays(samples)),
     ];
     for (let r = 0; r < REPEATS; r++) {
@@ -186,15 +142,20 @@ export async function run(): Promise<string> {
     const m = (ms: number[]): string => (rate(ms) / 1e6).toFixed(2);
     const same1 = share(times.jobs1, times.raw1);
     const same2 = share(times.jobs2, times.raw2);
-    verdicts.push(`${samples.toLocaleString('en')}: jobs 1 ${pc(same1)}, jobs 2 ${pc(same2)} of raw on as many cores`);
+    const sameCli = share(times.cli, cliJobs === 1 ? times.raw1 : times.raw2);
+    const cliPath = cliJobs === 1 ? 'this thread' : `${cliJobs} workers`;
+    verdicts.push(`${samples.toLocaleString('en')}: jobs 1 ${pc(same1)}, jobs 2 ${pc(same2)}, CLI default (${cliPath}) ${pc(sameCli)} of raw on as many threads`);
     const fresh = median(times.fresh.map((t, r) => t / times.raw1[r]!));
+    faultRates.push(median(times.fresh) / ((samples * (8 * D + 8)) / 1048576));
     // raw's CPU time over jobs 2's (all threads) for the same samples: the share of its CPU
     // time jobs 2 spends in the network, whatever cores the load leaves it
     const efficiency = share(cpu.jobs2, cpu.raw1);
     rows.push(
-      `| ${samples.toLocaleString('en')} | ${m(times.raw1)} | ${m(times.raw2)} | **${m(times.jobs1)} (${pc(same1)})** | **${m(times.jobs2)} (${pc(same2)})** | ${pc(share(times.jobs2, times.raw1))} | ${pc(share(times.raw1, times.raw2))} | ${pc(efficiency)} | ${pc(fresh)} |`,
+      `| ${samples.toLocaleString('en')} | ${m(times.raw1)} | ${m(times.raw2)} | **${m(times.jobs1)} (${pc(same1)})** | **${m(times.jobs2)} (${pc(same2)})** | **${m(times.cli)} (${pc(sameCli)}), ${cliPath}** | ${pc(share(times.jobs2, times.raw1))} | ${pc(share(times.raw1, times.raw2))} | ${pc(efficiency)} | ${pc(fresh)} | ${pc(1 / (1 + fresh))} |`,
     );
   }
+  // the CLI's one-thread sizes again, each in fresh processes (one at a time, after the rest)
+  const freshRuns = SIZES.filter((n) => cliThreads(n) === 1).map((n) => ({ n, shares: freshShares(modelPath, n) }));
   await raw1.release();
   await raw2.release();
   await two.close();
@@ -226,34 +187,52 @@ Same model every way: a ${D}-input, ${LAYERS}×${HIDDEN} ReLU network with ${K} 
 random weights, written with \`writeMlpOnnx\`), onnxruntime-node ${ort.env.versions.common},
 ${cpus().length}-core machine, Node ${process.version}. **Raw**: \`session.run\` on a fixed float32
 batch of ${RAW_BATCH.toLocaleString('en')} rows, repeated to the sample count, in a session with one
-intra-op thread and in one with two. **jobs 1**: \`sampleDomain\` with that budget (the
-function's default: jittered grid + Sobol for 40 %, four refinement rounds for 60 %) labelled in
-this thread by the model stage (\`labelInPlace\`: float64 → normalised float32, argmax and margin
-written straight into the sample set), batches of 16,384 — what \`specula mine --jobs 1\` runs.
-**jobs 2**: the same with two model workers (\`modelJobs\`, one onnxruntime session with one
-intra-op thread each; the sample set in shared memory, up to 4 batches in flight while the main
-thread generates and refines) — \`--jobs 2\`; the sample sets are identical. The workers'
-start-up (onnxruntime and the model loaded in each) is not in the rates: ${startUp.toFixed(0)} ms here, once
-per run. Every path runs ${WARM_UPS} times untimed first, then ${REPEATS} repetitions of all paths in an
-order rotating from one to the next: rates are medians, shares are medians of each
+intra-op thread and in one with two. **jobs 1**: \`sampleDomain\` with that budget and the
+function's default boundary share (jittered grid + Sobol for 40 %, four refinement rounds for
+60 %), labelled in this thread by the model stage (\`labelInPlace\`: float64 → normalised
+float32, argmax and margin written straight into the sample set; one onnxruntime session with
+one intra-op thread), batches of 16,384. **jobs 2**: the same with two model workers
+(\`modelJobs\`, one onnxruntime session with one intra-op thread each; the sample set in shared
+memory, up to 4 batches in flight while the main thread generates and refines); the sample sets
+are identical. **CLI default**: what \`specula mine\` runs with its default settings at that
+sample count — boundary share ${CLI.boundaryShare} (${100 - 100 * CLI.boundaryShare} % grid + Sobol), and the model's work on
+this thread or on workers as \`threadsForWork\` decides from the run's network evaluations
+(samples + ${CLI.maxRules} rules × ${CLI.checkSamples.toLocaleString('en')} dense checks + ${CLI.fidelitySamples.toLocaleString('en')} fidelity samples, workers from
+${WORKER_MIN_EVALUATIONS.toLocaleString('en')}) with --jobs = the ${CLI.jobs} available cores; it is compared with raw on as many
+threads as it uses (one intra-op thread in this thread; two workers against raw on two). The
+workers' start-up (onnxruntime and the model loaded in each) is not in the rates: ${startUp.toFixed(0)} ms
+here, once per run. Every path runs ${WARM_UPS} times untimed first, then ${REPEATS} repetitions of all
+paths in an order rotating from one to the next: rates are medians, shares are medians of each
 repetition's own ratio. One-minute load average when the benchmark started: ${loadAtStart.toFixed(1)} on
 ${cpus().length} cores (the machine is shared; ratios are the figures to compare).
 
-| samples | raw, 1 thread (M/s) | raw, 2 threads (M/s) | jobs 1 (M/s, % of raw 1 thread) | jobs 2 (M/s, % of raw 2 threads) | jobs 2, % of raw 1 thread | raw 1 thread, % of raw 2 threads | CPU time: raw 1 thread / jobs 2 (all threads) | first touch of the result arrays, % of raw 1-thread time |
-| ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |
+| samples | raw, 1 thread (M/s) | raw, 2 threads (M/s) | jobs 1 (M/s, % of raw 1 thread) | jobs 2 (M/s, % of raw 2 threads) | CLI default (M/s, % of raw on as many threads), threads | jobs 2, % of raw 1 thread | raw 1 thread, % of raw 2 threads | CPU time: raw 1 thread / jobs 2 (all threads) | first touch of the result arrays, % of raw 1-thread time | one-thread ceiling: raw / (raw + first touch) |
+| ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |
 ${rows.join('\n')}
 
 **Target** (design): sampling ≥ ${100 * TARGET_RATIO} % of raw batched onnxruntime throughput on the same
-model. It is judged here on the same number of cores — jobs 1 against raw on one intra-op
-thread, jobs 2 against raw on two — because that ratio is what the sampler's own overhead
-costs: comparing jobs 2 with one-thread raw (the design's reference figure, measured on one
-thread) would credit the second core to the sampler. That column is shown for reference.
-Measured: ${verdicts.join('; ')}. The CPU-time column depends little on the load: it is the
-share of jobs 2's CPU time (every thread) that raw needs for the same number of samples, so
-twice it, in units of one-thread raw, bounds what jobs 2 can reach on two idle cores. "First touch" allocates arrays the size of the sample set
-(x, advisory, margin: ${8 * D + 8} bytes a sample) and writes each element once: fresh memory faults in
-at about 4–5 ms/MB on this VM (docs/sampling.md), a cost any sampler that returns new arrays
-pays on top of the network. Advisories seen in the last sample set: ${advisoriesSeen} of ${K}.
+model. It is judged here on the same number of threads — jobs 1 against raw on one intra-op
+thread, jobs 2 against raw on two, the CLI default against raw on as many threads as it uses —
+because that ratio is what the sampler's own overhead costs: comparing a path on two threads
+with one-thread raw would credit the second core to the sampler (that column is shown for
+reference only). Measured: ${verdicts.join('; ')}. The CPU-time column depends little on the
+load: it is the share of jobs 2's CPU time (every thread) that raw needs for the same number of
+samples, so twice it, in units of one-thread raw, bounds what jobs 2 can reach on two idle
+cores. "First touch" allocates arrays the size of the sample set (x, advisory, margin: ${8 * D + 8}
+bytes a sample) and writes each element once: fresh memory faulted in at ${faultRates.map((r) => r.toFixed(1)).join(' and ')} ms/MB here
+(docs/sampling.md), a cost any sampler that returns new arrays pays on top of the network, and
+in one thread it cannot overlap the network (onnxruntime-node runs \`session.run\` on the
+calling thread). The last column is therefore the most a one-thread sampler can reach even if
+making the points and labelling them cost nothing beyond raw. Advisories seen in the last
+sample set: ${advisoriesSeen} of ${K}.
+
+**Fresh process** (what a CLI run meets; the table above is the steady state of one long
+process, where freed memory and compiled code are reused): for each size the CLI samples in
+this thread, ${FRESH_RUNS} new processes each load the model as the CLI does (a one-row probe run) and time
+the first \`sampleDomain\` call with the CLI's default boundary share (compiler cold, result
+arrays and onnxruntime's working memory fresh), then raw on one intra-op thread for as many rows
+after ${RAW_WARM_RUNS} untimed batches (raw stays the steady-state reference). raw / sampling:
+${freshRuns.map(({ n, shares }) => `${n.toLocaleString('en')} samples ${shares.map((v) => `${(100 * v).toFixed(0)} %`).join(', ')} (median ${(100 * median(shares)).toFixed(0)} %)`).join('; ') || 'no size runs in this thread'}.
 
 ${memoryText}`;
 }

@@ -31,13 +31,16 @@ export function activeCount(active: ActiveSamples): number {
   return active.candidates.length + active.to - active.from;
 }
 
-/** `cellIndex` (grid-for-round.ts) written out, with the grid's fields passed in. */
-function cellOfRow(x: Float64Array, i: number, d: number, g: number, cellScale: Float64Array, cellShift: Float64Array): number {
+/**
+ * `cellIndex` (grid-for-round.ts) written out, with the grid's fields passed in (g1 = g + 1).
+ * The index stays below (g + 1)^d ≤ 2^24, so it is kept as a small integer throughout (`| 0`).
+ */
+function cellOfRow(x: Float64Array, i: number, d: number, g: number, g1: number, cellScale: Float64Array, cellShift: Float64Array): number {
   let cell = 0;
   for (let j = 0, at = i * d; j < d; j++, at++) {
     // the position in cells, clamped to [0, g] before the truncation (so |0 cannot wrap)
     const v = x[at]! * cellScale[j]! + cellShift[j]!;
-    cell = cell * (g + 1) + (v > 0 ? (v < g ? v | 0 : g) : 0);
+    cell = (cell * g1 + (v > 0 ? (v < g ? v | 0 : g) : 0)) | 0;
   }
   return cell;
 }
@@ -50,16 +53,17 @@ function cellOfRow(x: Float64Array, i: number, d: number, g: number, cellScale: 
  */
 export function markCellsInPlace(held: CellMask, cellOf: Int32Array, x: Float64Array, advisory: Int32Array, d: number, grid: RoundGrid, active: ActiveSamples): void {
   const { perAxis: g, cellScale, cellShift } = grid;
+  const g1 = g + 1;
   const { candidates, from, to } = active;
   const s = candidates.length;
   for (let k = 0; k < s; k++) {
     const i = candidates[k]!;
-    const cell = cellOfRow(x, i, d, g, cellScale, cellShift);
+    const cell = cellOfRow(x, i, d, g, g1, cellScale, cellShift);
     cellOf[k] = cell;
     held[cell]! |= 1 << (advisory[i]! & 31);
   }
   for (let i = from, k = s; i < to; i++, k++) {
-    const cell = cellOfRow(x, i, d, g, cellScale, cellShift);
+    const cell = cellOfRow(x, i, d, g, g1, cellScale, cellShift);
     cellOf[k] = cell;
     held[cell]! |= 1 << (advisory[i]! & 31);
   }

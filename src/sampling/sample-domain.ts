@@ -117,9 +117,11 @@ export async function sampleDomain(inputs: readonly InputSpec[], source: Evaluat
   await evaluateNew(initial, spaceFillingRows(box, initial, rng, x));
   // each round looks at the candidates (samples in mixed cells, near-ties) and new points of the
   // round before (all samples at first); two work spaces take turns: one holds the candidates
-  // being read, the other the new ones
+  // being read, the other the new ones. Both start at the first round's size and grow only when
+  // a round needs more: pages are faulted in as they are first written, so a space reused
+  // costs nothing new, while a space replaced by a larger one is faulted in again
   let active: ActiveSamples = { candidates: new Int32Array(0), from: 0, to: filled };
-  const spaces = [new Int32Array(initial), new Int32Array(0)];
+  const spaces = [new Int32Array(initial), new Int32Array(initial)];
   for (let round = 0; round < REFINE_ROUNDS; round++) {
     const count = Math.floor((refineTotal * (round + 1)) / REFINE_ROUNDS) - Math.floor((refineTotal * round) / REFINE_ROUNDS);
     if (count === 0) continue;

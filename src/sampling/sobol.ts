@@ -131,25 +131,30 @@ export function sobolShift(d: number, rng: Rng | undefined): Int32Array {
  * Points [first, first + n) of the shifted sequence (d = shift.length), written from row `row`
  * on: point i is the XOR of the direction numbers picked by the bits of its Gray code
  * i ^ (i >> 1), which is where the Gray-code steps from point 0 arrive; then steps as in
- * `sobolInPlace`. Lets a sequence be made a batch at a time. Arguments are not checked.
+ * `sobolInPlace`. Lets a sequence be made a batch at a time. With `lo` and `width` (d values
+ * each) every coordinate u is written as lo + u·width instead (the same double as mapping the
+ * unit-cube point afterwards, without a second pass). Arguments are not checked.
  */
-export function sobolRangeInPlace(first: number, n: number, shift: Int32Array, out: Float64Array, row: number): void {
+export function sobolRangeInPlace(first: number, n: number, shift: Int32Array, out: Float64Array, row: number, lo?: Float64Array, width?: Float64Array): void {
   const d = shift.length;
   const v = directionNumbers(d);
-  const x = new Int32Array(d);
+  // y = the point's coordinates XOR the shift: a Gray-code step XORs y as it would x
+  const y = Int32Array.from(shift);
   const gray = (first ^ (first >>> 1)) >>> 0;
   for (let b = 0; b < BITS; b++) {
     if (((gray >>> b) & 1) === 0) continue;
-    for (let j = 0; j < d; j++) x[j] = x[j]! ^ v[j * BITS + b]!;
+    for (let j = 0; j < d; j++) y[j] = y[j]! ^ v[j * BITS + b]!;
   }
-  for (let i = first, end = first + n; i < end; i++) {
+  // the identity map when no box is given: 0 + u·1 is u exactly
+  const base = lo ?? new Float64Array(d);
+  const size = width ?? new Float64Array(d).fill(1);
+  for (let i = first, end = first + n, at = row * d; i < end; i++) {
     if (i > first) {
       // Gray-code step: flip direction number c, the index of the lowest zero bit of i − 1
       const m = i - 1;
       const c = 31 - Math.clz32(~m & (m + 1));
-      for (let j = 0; j < d; j++) x[j] = x[j]! ^ v[j * BITS + c]!;
+      for (let j = 0; j < d; j++) y[j] = y[j]! ^ v[j * BITS + c]!;
     }
-    const at = (row + i - first) * d;
-    for (let j = 0; j < d; j++) out[at + j] = ((x[j]! ^ shift[j]!) >>> 0) * TWO_POW_MINUS_32;
+    for (let j = 0; j < d; j++, at++) out[at] = base[j]! + (y[j]! >>> 0) * TWO_POW_MINUS_32 * size[j]!;
   }
 }

@@ -25,6 +25,8 @@ export function spaceFillingRows(box: Box, initial: number, rng: Rng, x: Float64
   const gridBudget = gridCellsPerAxis(Math.floor(initial * GRID_SHARE), d) >= 2 ? Math.floor(initial * GRID_SHARE) : 0;
   const c = gridCellsPerAxis(gridBudget, d);
   const gridCount = c ** d;
+  const lo = Float64Array.from(box, (b) => b[0]);
+  const width = Float64Array.from(box, (b) => b[1] - b[0]);
   let shift: Int32Array | undefined;
   let written = 0;
   const shiftOnce = (): Int32Array => (shift ??= sobolShift(d, rng));
@@ -40,19 +42,9 @@ export function spaceFillingRows(box: Box, initial: number, rng: Rng, x: Float64
     const sobolFrom = from + gridRows;
     const sobolRows = from + count - sobolFrom;
     if (sobolRows > 0) {
-      sobolRangeInPlace(sobolFrom - gridCount, sobolRows, shiftOnce(), x, sobolFrom);
-      toBoxInPlace(box, x, sobolFrom, sobolFrom + sobolRows);
+      // Sobol points arrive in [0, 1)^d: mapped to the box as they are written
+      sobolRangeInPlace(sobolFrom - gridCount, sobolRows, shiftOnce(), x, sobolFrom, lo, width);
     }
   };
 }
 
-/** Maps rows [from, to) of x from the unit cube to the box, in place (Sobol points arrive in [0, 1)^d). */
-function toBoxInPlace(box: Box, x: Float64Array, from: number, to: number): void {
-  const d = box.length;
-  const lo = Float64Array.from(box, (b) => b[0]);
-  const width = Float64Array.from(box, (b) => b[1] - b[0]);
-  for (let i = from * d, end = to * d, j = 0; i < end; i++) {
-    x[i] = lo[j]! + x[i]! * width[j]!;
-    if (++j === d) j = 0;
-  }
-}

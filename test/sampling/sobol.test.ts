@@ -69,6 +69,19 @@ describe('sobol', () => {
     expect(Array.from(parts)).toEqual(Array.from(whole));
   });
 
+  it('maps a range to a box as it writes it: lo + u·width, bit for bit as mapping the unit-cube points afterwards', () => {
+    const d = 3;
+    const lo = Float64Array.from([-2, 0, 1e6]);
+    const width = Float64Array.from([4, 0.3, 7e5]);
+    const shift = sobolShift(d, createRng(9));
+    const unit = new Float64Array(200 * d);
+    sobolRangeInPlace(37, 200, shift, unit, 0);
+    const boxed = new Float64Array(200 * d);
+    sobolRangeInPlace(37, 200, shift, boxed, 0, lo, width);
+    // the same double operations in the same order, so equality is exact (no tolerance)
+    expect(Array.from(boxed)).toEqual(Array.from(unit, (u, i) => lo[i % d]! + u * width[i % d]!));
+  });
+
   it('puts exactly one of the first 2^m shifted points in every elementary interval of the 2-D net', () => {
     // Sobol's first two dimensions form a (0, m, 2)-net in base 2 (Sobol 1967; Niederreiter,
     // "Random number generation and quasi-Monte Carlo methods", SIAM 1992, ch. 4); a digital shift keeps it.
