@@ -44,7 +44,7 @@ export async function run(): Promise<string> {
     `Quality of the demo table: ${mined} mined rules (target ≤ 60); fidelity ${(100 * f.overall.value).toFixed(2)} % ` +
       `(95 % interval ${(100 * f.overall.lower).toFixed(2)}–${(100 * f.overall.upper).toFixed(2)} %, target ≥ 99 %); ` +
       `balanced fidelity ${(100 * f.balanced).toFixed(2)} % (target ≥ 97 %); statuses ${JSON.stringify(statuses)}; ` +
-      `proven coverage of the domain ${coverage} (target ≥ 90 %).`,
+      `proven coverage of the domain without repair ${coverage} (the mined rules as they are; target ≥ 90 % with \`--repair\`: see the Repair section).`,
     '',
   ].join('\n');
 }
