@@ -105,8 +105,9 @@ export interface RepairResult {
 /**
  * Repairs a refuted rule: finds few readable sub-boxes of its box, each proven by proveBox on
  * exactly that box for the same allowed advisories, covering as much of the box as the budget
- * allows (`peelAndProve`, then `mergeProven`). Sub-rules get ids `<parent>.1`, `<parent>.2`, … in
- * sortRules order and origin `{ kind: 'repaired', from: parent.id }`. Sound by construction:
+ * allows (`peelAndProve`, `mergeProven`, `fillFromPieces`, then `mergeProven` again). Sub-rules
+ * get ids `<parent>.1`, `<parent>.2`, … in sortRules order and origin
+ * `{ kind: 'repaired', from: parent.id }`. Sound by construction:
  * nothing is returned that proveBox did not prove; samples only choose the cuts.
  *
  * @param net the network as read from the ONNX file (readOnnxNetwork)
@@ -165,7 +166,8 @@ export async function repairRule(net: Network, rule: Rule, scenario: RepairScena
   const merged = await mergeProven(ctx, await peelAndProve(ctx, peel));
   const fillPieces = options.fillPieces ?? REPAIR_DEFAULTS.fillPieces;
   const filled = await fillFromPieces(ctx, merged, { maxSubRules: peel.maxSubRules, minVolumeShare: peel.minVolumeShare / FILL_SHARE_DIVISOR, mapPieces: fillPieces });
-  const parts = filled.map((p) => ({ ...p, allowed: rule.allowed }));
+  // boxes the fill grew side by side may now form a box together: fewer sub-rules, same cover
+  const parts = (await mergeProven(ctx, filled)).map((p) => ({ ...p, allowed: rule.allowed }));
   const origin = { kind: 'repaired', from: rule.id } as const;
   const partOf = new Map(parts.map((p) => [p.box, p]));
   const ordered = sortRules(parts.map((p) => ({ id: '', box: p.box, allowed: p.allowed, origin })));
