@@ -5,10 +5,12 @@
  */
 import { availableParallelism } from 'node:os';
 import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import * as ort from 'onnxruntime-node';
 import type { DenseLayer } from '../src/model/index.js';
 import { threadsForWork } from '../src/pipeline/model-jobs.js';
 import { createRng } from '../src/sampling/index.js';
+import { loadScenario } from '../src/scenario/index.js';
 import type { InputSpec, Scenario } from '../src/types.js';
 import { benchMineSettings } from './_mine-defaults.js';
 
@@ -32,13 +34,8 @@ export function cliThreads(samples: number): number {
   return Math.min(2, threadsForWork(evaluations, CLI.jobs));
 }
 
-export const INPUTS: readonly InputSpec[] = [
-  { name: 'cpa_nm', unit: 'nmi', min: 0, max: 1.5, description: '' },
-  { name: 'tcpa_min', unit: 'min', min: -2, max: 20, description: '' },
-  { name: 'bearing_deg', unit: 'deg', min: -180, max: 180, description: '' },
-  { name: 'rel_course_deg', unit: 'deg', min: -180, max: 180, description: '' },
-  { name: 'own_speed_kn', unit: 'kn', min: 0, max: 10, description: '' },
-];
+/** The survey-boat scenario's input box (the benchmark's network is its own, seeded below). */
+export const INPUTS: readonly InputSpec[] = loadScenario(fileURLToPath(new URL('../scenarios/survey-boat/scenario.json', import.meta.url))).inputs;
 
 /** A seeded random ReLU network (He-scaled weights) so that its advisories vary over the box. */
 export function network(seed: number): DenseLayer[] {

@@ -62,7 +62,7 @@ export async function fillFromPieces(ctx: RepairContext, parts: readonly ProvenP
     for (const cell of open) {
       if (timeLeft(ctx) <= 0 || ctx.pieces >= stopAt) break;
       if (share(cell) < options.minVolumeShare / 8) continue;
-      await proveIn(ctx, cell, { maxBoxes: Math.min(MAP_PIECES_PER_CELL, stopAt - ctx.pieces) });
+      await proveIn(ctx, cell, Math.min(MAP_PIECES_PER_CELL, stopAt - ctx.pieces));
     }
   }
   // first the kept parts grow (no new sub-rule), then new boxes are cut where they cannot reach
@@ -106,16 +106,17 @@ function growAll(ctx: RepairContext, from: Box, kept: readonly ProvenPart[]): Mu
   return box;
 }
 
-/** The intersection of two closed boxes when it has positive width on every input where `b` has. */
+/** Whether closed boxes a and b overlap on input i: with positive width there where `b` has. */
+function overlapsOn(a: Box, b: Box, i: number): boolean {
+  const lo = Math.max(a[i]![0], b[i]![0]);
+  const hi = Math.min(a[i]![1], b[i]![1]);
+  return hi > lo || (hi === lo && b[i]![1] === b[i]![0]);
+}
+
+/** The intersection of two closed boxes when they overlap on every input (`overlapsOn`). */
 function intersect(a: Box, b: Box): Box | undefined {
-  const out: MutableBox = [];
-  for (let i = 0; i < b.length; i++) {
-    const lo = Math.max(a[i]![0], b[i]![0]);
-    const hi = Math.min(a[i]![1], b[i]![1]);
-    if (hi < lo || (hi === lo && b[i]![1] > b[i]![0])) return undefined;
-    out.push([lo, hi]);
-  }
-  return out;
+  if (!b.every((_, i) => overlapsOn(a, b, i))) return undefined;
+  return b.map(([lo, hi], i) => [Math.max(a[i]![0], lo), Math.min(a[i]![1], hi)] as const);
 }
 
 function containsCentre(box: Box, of: Box): boolean {
@@ -179,13 +180,7 @@ function growFace(ctx: RepairContext, box: MutableBox, i: number, side: 'lo' | '
   if (v !== undefined) box[i]![up ? 1 : 0] = v;
 }
 
-/** Whether two boxes overlap with positive measure on every input but i (where `of` has width). */
+/** Whether two boxes overlap (`overlapsOn`) on every input but i. */
 function crossOverlap(a: Box, of: Box, i: number): boolean {
-  for (let j = 0; j < of.length; j++) {
-    if (j === i) continue;
-    const lo = Math.max(a[j]![0], of[j]![0]);
-    const hi = Math.min(a[j]![1], of[j]![1]);
-    if (hi < lo || (hi === lo && of[j]![1] > of[j]![0])) return false;
-  }
-  return true;
+  return of.every((_, j) => j === i || overlapsOn(a, of, j));
 }

@@ -78,14 +78,14 @@ export async function addLabelledPoints(ctx: RepairContext, x: Float64Array, m: 
 /**
  * Runs proveBox on exactly `box` with the per-proof budget (no more than the pieces left) and the
  * time left, reusing the pieces proven so far (`ctx.known`); counts its pieces and adds the
- * pieces it proved to `ctx.known` (a proven box replaces the known pieces inside it). With `map`
- * the proof maps the box instead, with its own piece budget: it goes on past counterexamples
- * (proveBox's `keepGoing`).
+ * pieces it proved to `ctx.known` (a proven box replaces the known pieces inside it). With
+ * `mapBoxes` the proof maps the box instead, with that piece budget: it goes on past
+ * counterexamples (proveBox's `keepGoing`).
  */
-export async function proveIn(ctx: RepairContext, box: Box, map?: { readonly maxBoxes: number }): Promise<ProveResult> {
-  const maxBoxes = map?.maxBoxes ?? ctx.maxBoxesPerProof;
+export async function proveIn(ctx: RepairContext, box: Box, mapBoxes?: number): Promise<ProveResult> {
+  const maxBoxes = mapBoxes ?? ctx.maxBoxesPerProof;
   const result = await proveBox(ctx.net, box, ctx.allowed, ctx.decision, {
-    ...(map !== undefined ? { keepGoing: true } : {}),
+    keepGoing: mapBoxes !== undefined,
     maxBoxes: Math.max(0, Math.floor(Math.min(maxBoxes, ctx.maxPieces - ctx.pieces))),
     maxSeconds: timeLeft(ctx) / 1000,
     now: ctx.now,
